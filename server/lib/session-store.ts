@@ -1,0 +1,67 @@
+import type { MikroORM } from '@mikro-orm/core'
+import session from 'express-session'
+
+/**
+ * express-session store on the app's own database (SQLite or PostgreSQL through MikroORM), so
+ * sessions survive a restart and are shared by every app process. Expired rows are purged lazily.
+ */
+export class DatabaseSessionStore extends session.Store {
+  private lastPurgeMs = 0
+
+  constructor(private readonly orm: MikroORM) {
+    super()
+  }
+
+  private conn() {
+    return this.orm.em.getConnection()
+  }
+
+  private expiry(sess: session.SessionData): number {
+    const exp = sess.cookie?.expires ? new Date(sess.cookie.expires).getTime() : Date.now() + 24 * 3600_000
+    return exp
+  }
+
+  override get(sid: string, cb: (err: unknown, session?: session.SessionData | null) => void): void {
+    this.conn()
+      .execute<{ data: string; expires_at: number | string }[]>('select data, expires_at from sessions where sid = ?', [sid])
+      .then((rows) => {
+        const row = rows[0]
+        if (!row || Number(row.expires_at) < Date.now()) return cb(null, null)
+        cb(null, JSON.parse(row.data) as session.SessionData)
+      })
+      .catch((err) => cb(err))
+  }
+
+  override set(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void): void {
+    const data = JSON.stringify(sess)
+    this.conn()
+      .execute(
+        'insert into sessions (sid, data, expires_at) values (?, ?, ?) on conflict (sid) do update set data = excluded.data, expires_at = excluded.expires_at',
+        [sid, data, this.expiry(sess)],
+      )
+      .then(() => this.maybePurge())
+      .then(() => cb?.())
+      .catch((err) => cb?.(err))
+  }
+
+  override touch(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void): void {
+    this.conn()
+      .execute('update sessions set expires_at = ? where sid = ?', [this.expiry(sess), sid])
+      .then(() => cb?.())
+      .catch((err) => cb?.(err))
+  }
+
+  override destroy(sid: string, cb?: (err?: unknown) => void): void {
+    this.conn()
+      .execute('delete from sessions where sid = ?', [sid])
+      .then(() => cb?.())
+      .catch((err) => cb?.(err))
+  }
+
+  private async maybePurge(): Promise<void> {
+    const now = Date.now()
+    if (now - this.lastPurgeMs < 10 * 60_000) return
+    this.lastPurgeMs = now
+    await this.conn().execute('delete from sessions where expires_at < ?', [now])
+  }
+}
