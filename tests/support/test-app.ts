@@ -7,6 +7,7 @@ import type TestAgent from 'supertest/lib/agent.js'
 import { createApp } from '#server/app.ts'
 import { initOrm } from '#server/db.ts'
 import type { AppDeps } from '#server/lib/deps.ts'
+import { applyImmutabilityTriggers } from '#server/lib/immutability.ts'
 import type { Mailer, MailMessage } from '#server/lib/mailer.ts'
 import { createPayments } from '#server/lib/payments.ts'
 import { seedDemoIfEmpty } from '#server/seed/demo.ts'
@@ -46,6 +47,7 @@ export async function createTestApp(options: { payments?: AppDeps['payments']; s
   const dbPath = join(dir, `api-${process.pid}-${Date.now()}-${counter++}.sqlite`)
   const orm = await initOrm({ databasePath: dbPath })
   await orm.schema.createSchema()
+  await applyImmutabilityTriggers(orm)
   if (options.seed !== false) await seedDemoIfEmpty(orm, DEMO_PASSWORD)
   const sentMail: MailMessage[] = []
   const mailer: Mailer = {
