@@ -33,7 +33,10 @@ export const CylinderSchema = defineEntity({
     notes: p.text().default(''),
     version: p.integer().version(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 })
 export type Cylinder = InferEntity<typeof CylinderSchema>

@@ -25,7 +25,10 @@ export const FillRunSchema = defineEntity({
     notes: p.text().default(''),
     version: p.integer().version(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 })
 export type FillRun = InferEntity<typeof FillRunSchema>
