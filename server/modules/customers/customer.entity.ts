@@ -14,7 +14,10 @@ export const CustomerSchema = defineEntity({
     billingAddress: p.text().default(''),
     paymentProviderId: p.string().length(64).nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 })
 export type Customer = InferEntity<typeof CustomerSchema>

@@ -1,12 +1,18 @@
 import { defineEntity, type InferEntity, p } from '@mikro-orm/core'
 import type { OrderStatus } from '#shared/schemas/order-lifecycle.ts'
 import { ORDER_STATUSES } from '#shared/schemas/order-lifecycle.ts'
+import type { LinePricing } from '#shared/schemas/quote.ts'
 import { CustomerSchema } from '../customers/customer.entity.ts'
 
-/** A mixture component of a specification: gas id and mole fraction (0..1). */
+/**
+ * A mixture component of a specification: gas id and mole fraction (0..1); for the minor components also the
+ * amount and unit the customer asked in (absent on the balance gas).
+ */
 export interface SpecComponent {
   gas: string
   fraction: number
+  amount?: number
+  unit?: 'percent' | 'ppm' | 'mol/mol'
 }
 
 /**
@@ -20,6 +26,8 @@ export const OrderSchema = defineEntity({
     { properties: ['createdAt', 'id'] },
     { properties: ['status', 'createdAt', 'id'] },
     { properties: ['customer', 'createdAt', 'id'] },
+    { properties: ['neededBy', 'id'] },
+    { properties: ['totalMinor', 'id'] },
   ],
   properties: {
     id: p.integer().primary().autoincrement(),
@@ -31,6 +39,8 @@ export const OrderSchema = defineEntity({
     currency: p.string().length(3).default('EUR'),
     totalMinor: p.integer().default(0),
     quoteValidUntil: p.string().length(10).nullable(),
+    /** rental period included in the quoted price, days */
+    rentalDays: p.integer().default(30),
     quoteSentAt: p.datetime().nullable(),
     acceptedAt: p.datetime().nullable(),
     notes: p.text().default(''),
@@ -39,7 +49,10 @@ export const OrderSchema = defineEntity({
     createdById: p.integer().nullable(),
     version: p.integer().version(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 })
 export type Order = InferEntity<typeof OrderSchema>
@@ -70,6 +83,8 @@ export const OrderLineSchema = defineEntity({
     finalPressureBarGauge: p.float(),
     method: p.enum(['partial-pressure', 'gravimetric']).default('partial-pressure'),
     priceMinor: p.integer().default(0),
+    /** the breakdown behind priceMinor, as computed when the line was last saved or quoted */
+    pricing: p.json<LinePricing>().nullable(),
   },
 })
 export type OrderLine = InferEntity<typeof OrderLineSchema>

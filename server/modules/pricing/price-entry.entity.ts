@@ -20,7 +20,10 @@ export const PriceEntrySchema = defineEntity({
     unit: p.enum(['m3-15C', 'kg', 'day', 'cylinder']),
     priceMinor: p.integer(),
     currency: p.string().length(3).default('EUR'),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 })
 export type PriceEntry = InferEntity<typeof PriceEntrySchema>
