@@ -63,8 +63,34 @@ export async function startPaymentsFake(options: {
     next()
   })
 
+  // Idempotency-Key on POST: a retried request with the same key gets the first answer again (as the real API does)
+  const idempotent = new Map<string, { path: string; status: number; body: unknown }>()
+  app.use('/v1', (req, res, next) => {
+    const key = req.get('idempotency-key')
+    if (req.method !== 'POST' || !key) return next()
+    const seen = idempotent.get(key)
+    if (seen) {
+      if (seen.path !== req.originalUrl) return stripeError(res, 400, 'Keys for idempotent requests can only be used for the same endpoint.', 'idempotency_key')
+      res.setHeader('idempotent-replayed', 'true')
+      return res.status(seen.status).json(seen.body)
+    }
+    const json = res.json.bind(res)
+    res.json = (body: unknown) => {
+      if (res.statusCode < 500) idempotent.set(key, { path: req.originalUrl, status: res.statusCode, body: structuredClone(body) })
+      return json(body)
+    }
+    next()
+  })
+
   app.post('/v1/customers', (req, res) => {
-    const c = { id: id('cus'), object: 'customer', created: now(), email: req.body.email ?? null, name: req.body.name ?? null, metadata: req.body.metadata ?? {} }
+    const c = {
+      id: id('cus'),
+      object: 'customer',
+      created: now(),
+      email: req.body.email ?? null,
+      name: req.body.name ?? null,
+      metadata: req.body.metadata ?? {},
+    }
     state.customers.set(c.id, c)
     res.json(c)
   })
@@ -79,6 +105,10 @@ export async function startPaymentsFake(options: {
     if (!state.customers.has(customer)) return stripeError(res, 400, `No such customer: '${customer}'`, 'customer')
     const amount = Number(req.body.amount)
     if (!Number.isInteger(amount)) return stripeError(res, 400, 'Invalid integer: amount', 'amount')
+    const target = req.body.invoice ? state.invoices.get(String(req.body.invoice)) : undefined
+    if (req.body.invoice && !target) return stripeError(res, 400, `No such invoice: '${req.body.invoice}'`, 'invoice')
+    if (target && target.status !== 'draft') return stripeError(res, 400, 'Invoice items can only be added to a draft invoice.', 'invoice')
+    if (target && target.customer !== customer) return stripeError(res, 400, 'The invoice belongs to another customer.', 'invoice')
     const item = {
       id: id('ii'),
       object: 'invoiceitem',
@@ -90,6 +120,11 @@ export async function startPaymentsFake(options: {
       metadata: req.body.metadata ?? {},
     }
     state.invoiceItems.set(item.id, item)
+    if (target) {
+      ;(target.lines as { data: unknown[] }).data.push({ id: id('il'), object: 'line_item', amount: item.amount, description: item.description })
+      const total = (target.lines as { data: { amount: number }[] }).data.reduce((s, l) => s + l.amount, 0)
+      Object.assign(target, { total, amount_due: total })
+    }
     res.json(item)
   })
 
@@ -115,8 +150,9 @@ export async function startPaymentsFake(options: {
       number: null,
     }
     state.invoices.set(inv.id as string, inv)
-    // pending invoice items of this customer attach to the new invoice (default pending_invoice_items_behavior)
-    for (const item of state.invoiceItems.values()) {
+    // pending invoice items of this customer attach to the new invoice unless pending_invoice_items_behavior=exclude
+    const includePending = req.body.pending_invoice_items_behavior !== 'exclude'
+    for (const item of includePending ? state.invoiceItems.values() : []) {
       if (item.customer === customer && (item.invoice == null || item.invoice === inv.id)) {
         item.invoice = inv.id
         ;(inv.lines as { data: unknown[] }).data.push({ id: id('il'), object: 'line_item', amount: item.amount, description: item.description })
@@ -150,7 +186,13 @@ export async function startPaymentsFake(options: {
   })
 
   const markPaid = (inv: Record<string, unknown>) => {
-    Object.assign(inv, { status: 'paid', amount_paid: inv.amount_due, amount_due: 0, paid_at: now() })
+    Object.assign(inv, {
+      status: 'paid',
+      amount_paid: inv.amount_due,
+      amount_due: 0,
+      paid_at: now(),
+      status_transitions: { ...((inv.status_transitions as object | undefined) ?? {}), paid_at: now() },
+    })
     void sendWebhook('invoice.paid', inv)
   }
   app.post('/v1/invoices/:id/pay', (req, res) => {
@@ -167,13 +209,15 @@ export async function startPaymentsFake(options: {
     if (!inv) return res.status(404).send('No such invoice')
     const amount = (Number(inv.total) / 100).toFixed(2)
     const back = `${options.publicUrl ?? ''}/portal/invoices`
-    res.type('html').send(
-      `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Test payment</title><style>body{font-family:system-ui;max-width:30rem;margin:3rem auto}button{font-size:1.1rem;padding:.75rem 1.5rem}</style></head><body>` +
-        `<h1>Test payment page</h1><p>This local stand-in for the payment provider takes no real money.</p>` +
-        `<p>Invoice <b>${inv.number}</b>: <b>${amount} ${String(inv.currency).toUpperCase()}</b> — status <b>${inv.status}</b></p>` +
-        (inv.status === 'open' ? `<form method="post" action="/pay/${inv.id}"><button type="submit">Pay with test card</button></form>` : '') +
-        `<p><a href="${back}">Back to Fillwright</a></p></body></html>`,
-    )
+    res
+      .type('html')
+      .send(
+        `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Test payment</title><style>body{font-family:system-ui;max-width:30rem;margin:3rem auto}button{font-size:1.1rem;padding:.75rem 1.5rem}</style></head><body>` +
+          `<h1>Test payment page</h1><p>This local stand-in for the payment provider takes no real money.</p>` +
+          `<p>Invoice <b>${inv.number}</b>: <b>${amount} ${String(inv.currency).toUpperCase()}</b> — status <b>${inv.status}</b></p>` +
+          (inv.status === 'open' ? `<form method="post" action="/pay/${inv.id}"><button type="submit">Pay with test card</button></form>` : '') +
+          `<p><a href="${back}">Back to Fillwright</a></p></body></html>`,
+      )
   })
   app.post('/pay/:id', (req, res) => {
     const inv = state.invoices.get(req.params.id)

@@ -17,7 +17,10 @@ export const InvoiceSchema = defineEntity({
     hostedUrl: p.text().nullable(),
     paidAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 })
 export type Invoice = InferEntity<typeof InvoiceSchema>

@@ -12,6 +12,8 @@ export interface AnalysisResult {
   coverageFactor: number
   instrument: string
   method: string
+  /** the unit QA entered the value in (display only; value and uncertainty are stored as mole fractions) */
+  unit?: 'percent' | 'ppm' | 'mol/mol'
 }
 
 /** QA's analysis of a filled cylinder, with an optional uploaded report (stored outside served folders). */
