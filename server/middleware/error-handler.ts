@@ -2,6 +2,7 @@ import { OptimisticLockError, UniqueConstraintViolationException, ValidationErro
 import type { ErrorRequestHandler } from 'express'
 import { ZodError } from 'zod'
 import { PhysicsInputError } from '#shared/physics/types.ts'
+import { PlanningInputError } from '#shared/planning/errors.ts'
 import type { ApiErrorBody } from '#shared/schemas/api-error.ts'
 import { HttpError } from '../lib/http-errors.ts'
 
@@ -27,6 +28,10 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     body = problem(400, 'Invalid request', `Check ${errors.map((x) => x.field).join(', ')}: ${errors[0]?.message ?? 'invalid'}`, { errors })
   } else if (err instanceof HttpError) {
     body = problem(err.status, err.title, err.message, { ...(err.errors ? { errors: err.errors } : {}), ...(err.extra ?? {}) })
+  } else if (err instanceof PlanningInputError) {
+    body = problem(err.status, err.status === 422 ? 'Cannot be done as asked' : 'Invalid request', err.message, {
+      errors: [{ field: err.field, message: err.message }],
+    })
   } else if (err instanceof PhysicsInputError) {
     body = problem(400, 'Invalid request', err.message, { errors: [{ field: err.field, message: err.message }] })
   } else if (typeof e.status === 'number' && e.status >= 400 && e.status < 500) {

@@ -17,10 +17,38 @@ export const DEMO_SHOP = {
 }
 
 const CUSTOMERS = [
-  { code: 'ALDB', company: 'Alderbank Environmental Laboratory', contactName: 'Priya Venn', contactEmail: 'customer@demo.test', phone: '+00 555 0190', billingAddress: '14 Sorrel Street\nAlderbank' },
-  { code: 'BRWS', company: 'Brightwater Welding Supply', contactName: 'Tomas Quill', contactEmail: 'orders@brightwater-welding.test', phone: '+00 555 0171', billingAddress: '3 Forge Row\nBrightwater' },
-  { code: 'CRVF', company: 'Corvel Fresh Foods', contactName: 'Hanne Lidgate', contactEmail: 'packaging@corvel-foods.test', phone: '+00 555 0133', billingAddress: 'Cold Store 2, Marram Quay\nCorvel' },
-  { code: 'DNMR', company: 'Dunmore Detector Service', contactName: 'Osei Brandt', contactEmail: 'calibration@dunmore-detect.test', phone: '+00 555 0168', billingAddress: '88 Lantern Hill\nDunmore' },
+  {
+    code: 'ALDB',
+    company: 'Alderbank Environmental Laboratory',
+    contactName: 'Priya Venn',
+    contactEmail: 'customer@demo.test',
+    phone: '+00 555 0190',
+    billingAddress: '14 Sorrel Street\nAlderbank',
+  },
+  {
+    code: 'BRWS',
+    company: 'Brightwater Welding Supply',
+    contactName: 'Tomas Quill',
+    contactEmail: 'orders@brightwater-welding.test',
+    phone: '+00 555 0171',
+    billingAddress: '3 Forge Row\nBrightwater',
+  },
+  {
+    code: 'CRVF',
+    company: 'Corvel Fresh Foods',
+    contactName: 'Hanne Lidgate',
+    contactEmail: 'packaging@corvel-foods.test',
+    phone: '+00 555 0133',
+    billingAddress: 'Cold Store 2, Marram Quay\nCorvel',
+  },
+  {
+    code: 'DNMR',
+    company: 'Dunmore Detector Service',
+    contactName: 'Osei Brandt',
+    contactEmail: 'calibration@dunmore-detect.test',
+    phone: '+00 555 0168',
+    billingAddress: '88 Lantern Hill\nDunmore',
+  },
 ] as const
 
 const STAFF: { email: string; name: string; roles: Role[] }[] = [
@@ -43,10 +71,46 @@ function addYears(d: Date, years: number): Date {
 async function seedCylinders(em: EntityManager, customers: { id: number }[]): Promise<void> {
   const today = new Date()
   const specs = [
-    { prefix: 'KR-S50', count: 8, waterVolumeL: 50, servicePressureBar: 200, testPressureBar: 300, material: 'steel' as const, valveOutlet: 'DIN 477 No. 10', oxygenClean: false },
-    { prefix: 'KR-A10', count: 8, waterVolumeL: 10, servicePressureBar: 150, testPressureBar: 250, material: 'aluminium' as const, valveOutlet: 'DIN 477 No. 14', oxygenClean: true },
-    { prefix: 'KR-S40', count: 4, waterVolumeL: 40, servicePressureBar: 200, testPressureBar: 300, material: 'steel' as const, valveOutlet: 'DIN 477 No. 6', oxygenClean: true },
-    { prefix: 'KR-A05', count: 4, waterVolumeL: 5, servicePressureBar: 150, testPressureBar: 250, material: 'aluminium' as const, valveOutlet: 'DIN 477 No. 1', oxygenClean: false },
+    {
+      prefix: 'KR-S50',
+      count: 8,
+      waterVolumeL: 50,
+      servicePressureBar: 200,
+      testPressureBar: 300,
+      material: 'steel' as const,
+      valveOutlet: 'DIN 477 No. 10',
+      oxygenClean: false,
+    },
+    {
+      prefix: 'KR-A10',
+      count: 8,
+      waterVolumeL: 10,
+      servicePressureBar: 150,
+      testPressureBar: 250,
+      material: 'aluminium' as const,
+      valveOutlet: 'DIN 477 No. 14',
+      oxygenClean: true,
+    },
+    {
+      prefix: 'KR-S40',
+      count: 4,
+      waterVolumeL: 40,
+      servicePressureBar: 200,
+      testPressureBar: 300,
+      material: 'steel' as const,
+      valveOutlet: 'DIN 477 No. 6',
+      oxygenClean: true,
+    },
+    {
+      prefix: 'KR-A05',
+      count: 4,
+      waterVolumeL: 5,
+      servicePressureBar: 150,
+      testPressureBar: 250,
+      material: 'aluminium' as const,
+      valveOutlet: 'DIN 477 No. 1',
+      oxygenClean: false,
+    },
   ]
   let n = 0
   for (const spec of specs) {
@@ -56,8 +120,12 @@ async function seedCylinders(em: EntityManager, customers: { id: number }[]): Pr
       const lastTest = new Date(today)
       lastTest.setMonth(lastTest.getMonth() - ((n * 7) % 100))
       const overdue = i === spec.count
-      const next = overdue ? addYears(lastTest, -6) : addYears(lastTest, 10)
-      if (overdue) lastTest.setFullYear(lastTest.getFullYear() - 11)
+      // an overdue cylinder missed its 10-year retest by a few weeks to a few months
+      if (overdue) {
+        lastTest.setTime(today.getTime())
+        lastTest.setDate(lastTest.getDate() - 3650 - 20 * n)
+      }
+      const next = addYears(lastTest, 10)
       const serial = `${spec.prefix}-${String(1000 + n)}`
       em.create(CylinderSchema, {
         serial,

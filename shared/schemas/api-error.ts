@@ -8,8 +8,6 @@ export const ApiErrorBodySchema = z.object({
   detail: z.string(),
   instance: z.string().optional(),
   /** per-field errors for validation failures */
-  errors: z
-    .array(z.object({ field: z.string(), message: z.string(), code: z.string().optional() }))
-    .optional(),
+  errors: z.array(z.object({ field: z.string(), message: z.string(), code: z.string().optional() })).optional(),
 })
 export type ApiErrorBody = z.infer<typeof ApiErrorBodySchema>

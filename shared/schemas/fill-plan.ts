@@ -17,26 +17,26 @@ export const MassUnitSchema = z.enum(MASS_UNITS)
 export const ModelIdSchema = z.enum(PLAN_MODEL_IDS)
 
 /** A pressure with its unit and whether it is gauge or absolute. */
-export const PressureSchema = z.object({
+export const PressureSchema = z.strictObject({
   value: z.number(),
   unit: PressureUnitSchema,
   reference: z.enum(['gauge', 'absolute']),
 })
 /** A pressure difference or span (no reference). */
-export const PressureSpanSchema = z.object({ value: z.number().nonnegative(), unit: PressureUnitSchema })
-export const TemperatureSchema = z.object({ value: z.number(), unit: TemperatureUnitSchema })
-export const VolumeSchema = z.object({ value: z.number().positive(), unit: z.enum(VOLUME_UNITS) })
-export const MassSchema = z.object({ value: z.number().nonnegative(), unit: MassUnitSchema })
+export const PressureSpanSchema = z.strictObject({ value: z.number().nonnegative(), unit: PressureUnitSchema })
+export const TemperatureSchema = z.strictObject({ value: z.number(), unit: TemperatureUnitSchema })
+export const VolumeSchema = z.strictObject({ value: z.number().positive(), unit: z.enum(VOLUME_UNITS) })
+export const MassSchema = z.strictObject({ value: z.number().nonnegative(), unit: MassUnitSchema })
 const IsoDateSchema = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'date as yyyy-mm-dd')
 
-export const ComponentFractionSchema = z.object({
+export const ComponentFractionSchema = z.strictObject({
   gas: z.string().min(1),
   fraction: z.number().min(0).max(1),
   /** standard uncertainty of the fraction (k = 1), amount fraction */
   uncertainty: z.number().nonnegative().optional(),
 })
 
-export const TargetComponentSchema = z.object({
+export const TargetComponentSchema = z.strictObject({
   gas: z.string().min(1),
   fraction: z.number().min(0).max(1),
   /** marks the balance (matrix) gas; default the largest fraction */
@@ -44,8 +44,8 @@ export const TargetComponentSchema = z.object({
 })
 
 export const ResidualSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('evacuated') }),
-  z.object({
+  z.strictObject({ kind: z.literal('evacuated') }),
+  z.strictObject({
     kind: z.literal('residual'),
     pressure: PressureSchema,
     temperature: TemperatureSchema.optional(),
@@ -53,7 +53,7 @@ export const ResidualSchema = z.discriminatedUnion('kind', [
   }),
 ])
 
-export const CylinderSchema = z.object({
+export const CylinderSchema = z.strictObject({
   waterVolume: VolumeSchema,
   servicePressure: PressureSchema,
   testPressure: PressureSchema.optional(),
@@ -65,7 +65,7 @@ export const CylinderSchema = z.object({
 })
 
 export const SourceSchema = z
-  .object({
+  .strictObject({
     /** unique label; default the gas id (pure) or "premix-n" */
     id: z.string().min(1).optional(),
     /** main gas of a pure source */
@@ -78,26 +78,26 @@ export const SourceSchema = z
   })
   .refine((s) => s.gas !== undefined || s.composition !== undefined, { message: 'a source needs a gas or a premix composition' })
 
-export const GaugeSchema = z.object({
+export const GaugeSchema = z.strictObject({
   span: PressureSpanSchema,
   /** EN 837-1 accuracy class, % of span */
   accuracyClass: z.number().nonnegative(),
   resolution: PressureSpanSchema,
 })
 
-export const ScaleSchema = z.object({
+export const ScaleSchema = z.strictObject({
   resolution: MassSchema,
   /** standard uncertainty of one reading beyond resolution */
   uncertainty: MassSchema.optional(),
 })
 
-export const DisplayUnitsSchema = z.object({
+export const DisplayUnitsSchema = z.strictObject({
   pressure: PressureUnitSchema.optional(),
   temperature: TemperatureUnitSchema.optional(),
   mass: MassUnitSchema.optional(),
 })
 
-export const FillPlanRequestSchema = z.object({
+export const FillPlanRequestSchema = z.strictObject({
   target: z.array(TargetComponentSchema).min(1),
   finalPressure: PressureSchema,
   referenceTemperature: TemperatureSchema,
@@ -240,7 +240,7 @@ export type FillPlanResponse = z.infer<typeof FillPlanResponseSchema>
 // ---- re-planning ----------------------------------------------------------------------------------------
 
 export const StepActualSchema = z
-  .object({
+  .strictObject({
     stepIndex: z.number().int().nonnegative(),
     pressure: PressureSchema.optional(),
     temperature: TemperatureSchema.optional(),
@@ -249,7 +249,7 @@ export const StepActualSchema = z
   })
   .refine((a) => a.pressure !== undefined || a.scaleMass !== undefined, { message: 'a reading needs a pressure or a scale mass' })
 
-export const ReplanRequestSchema = z.object({
+export const ReplanRequestSchema = z.strictObject({
   plan: FillPlanRequestSchema,
   actuals: z.array(StepActualSchema).min(1),
 })
@@ -321,7 +321,7 @@ export const CompareModelsResponseSchema = z.object({
 })
 export type CompareModelsResponse = z.infer<typeof CompareModelsResponseSchema>
 
-export const BatchRequestSchema = z.object({
+export const BatchRequestSchema = z.strictObject({
   plan: FillPlanRequestSchema,
   cylinderCount: z.number().int().min(1).max(10_000),
 })

@@ -5,19 +5,7 @@ import type { Role } from './auth.ts'
  * An order's lifecycle, from the customer's specification to a paid invoice. Fillwright's own labels.
  * Each transition names the roles that may make it (admin may make any).
  */
-export const ORDER_STATUSES = [
-  'draft',
-  'quoted',
-  'accepted',
-  'planned',
-  'filling',
-  'analysis',
-  'released',
-  'shipped',
-  'invoiced',
-  'paid',
-  'cancelled',
-] as const
+export const ORDER_STATUSES = ['draft', 'quoted', 'accepted', 'planned', 'filling', 'analysis', 'released', 'shipped', 'invoiced', 'paid', 'cancelled'] as const
 export const OrderStatusSchema = z.enum(ORDER_STATUSES)
 export type OrderStatus = z.infer<typeof OrderStatusSchema>
 

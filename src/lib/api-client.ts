@@ -35,7 +35,14 @@ interface RequestOptions {
   signal?: AbortSignal
 }
 
-async function request<T>(method: string, path: string, schema: z.ZodType<T> | null, body?: unknown, options: RequestOptions = {}, retried = false): Promise<T> {
+async function request<T>(
+  method: string,
+  path: string,
+  schema: z.ZodType<T> | null,
+  body?: unknown,
+  options: RequestOptions = {},
+  retried = false,
+): Promise<T> {
   const url = new URL(path, window.location.origin)
   for (const [k, v] of Object.entries(options.query ?? {})) if (v !== undefined && v !== null && v !== '') url.searchParams.set(k, String(v))
   const headers: Record<string, string> = { accept: 'application/json' }

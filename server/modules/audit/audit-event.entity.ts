@@ -7,7 +7,10 @@ export const AuditEventSchema = defineEntity({
   indexes: [{ properties: ['entityType', 'entityId'] }],
   properties: {
     id: p.integer().primary().autoincrement(),
-    at: p.datetime().onCreate(() => new Date()).index(),
+    at: p
+      .datetime()
+      .onCreate(() => new Date())
+      .index(),
     actorId: p.integer().nullable(),
     actorEmail: p.string().length(254).nullable(),
     action: p.string().length(64),

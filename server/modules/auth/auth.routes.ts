@@ -10,7 +10,8 @@ const WINDOW_MS = 15 * 60_000
 const MAX_FAILURES = 10
 
 function tooMany(): RequestHandler {
-  return (_req, _res, next) => next(new HttpError(429, 'Too many attempts', 'Too many failed sign-in attempts. Wait 15 minutes and try again, or ask an administrator.'))
+  return (_req, _res, next) =>
+    next(new HttpError(429, 'Too many attempts', 'Too many failed sign-in attempts. Wait 15 minutes and try again, or ask an administrator.'))
 }
 
 /** Wrong-password attempts are limited per address and per account: the 11th failure in 15 minutes gets 429. */
@@ -30,7 +31,10 @@ export function loginLimiters(): RequestHandler[] {
     rateLimit({
       ...common,
       identifier: 'login-account',
-      keyGenerator: (req) => `account:${String((req.body as { email?: unknown } | undefined)?.email ?? '').trim().toLowerCase()}`,
+      keyGenerator: (req) =>
+        `account:${String((req.body as { email?: unknown } | undefined)?.email ?? '')
+          .trim()
+          .toLowerCase()}`,
     }),
   ]
 }
@@ -108,4 +112,3 @@ defineRoute({
   response: SessionUserSchema,
   handler: ({ user }) => user,
 })
-

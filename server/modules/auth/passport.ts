@@ -38,10 +38,7 @@ export function createPassport(orm: MikroORM): passport.PassportStatic {
   pp.use(
     new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, (email, password, done) => {
       conn()
-        .execute<UserRow[]>(
-          'select id, email, name, roles, active, customer_id, password_hash from users where email = ?',
-          [email.trim().toLowerCase()],
-        )
+        .execute<UserRow[]>('select id, email, name, roles, active, customer_id, password_hash from users where email = ?', [email.trim().toLowerCase()])
         .then(async (rows) => {
           const row = rows[0]
           if (!row || !row.active) {

@@ -15,7 +15,10 @@ export const UserSchema = defineEntity({
     active: p.boolean().default(true),
     customer: p.manyToOne(CustomerSchema).nullable().ref(false),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 })
 export type User = InferEntity<typeof UserSchema>

@@ -1,5 +1,15 @@
 import { OkSchema } from '#shared/schemas/auth.ts'
-import { AuditListSchema, AuditQuerySchema, OwnPasswordChangeSchema, UserCreateInputSchema, UserIdParamsSchema, UserListSchema, UserPasswordResetSchema, UserSchema, UserUpdateInputSchema } from '#shared/schemas/user.ts'
+import {
+  AuditListSchema,
+  AuditQuerySchema,
+  OwnPasswordChangeSchema,
+  UserCreateInputSchema,
+  UserIdParamsSchema,
+  UserListSchema,
+  UserPasswordResetSchema,
+  UserSchema,
+  UserUpdateInputSchema,
+} from '#shared/schemas/user.ts'
 import { defineRoute } from '../../lib/route.ts'
 import { changeOwnPassword, createUser, listAudit, listUsers, resetPassword, updateUser } from './users.service.ts'
 

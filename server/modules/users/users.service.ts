@@ -55,7 +55,9 @@ export async function updateUser(em: EntityManager, actor: SessionUser, id: numb
   const user = await em.findOne(UserSchema, { id }, { populate: ['customer'] })
   if (!user) throw new NotFoundError('No such account.')
   if (id === actor.id && (!input.active || !input.roles.includes('admin'))) {
-    throw new UnprocessableError('You cannot remove your own admin role or deactivate yourself; ask another admin.', [{ field: 'roles', message: 'Keep your admin role' }])
+    throw new UnprocessableError('You cannot remove your own admin role or deactivate yourself; ask another admin.', [
+      { field: 'roles', message: 'Keep your admin role' },
+    ])
   }
   user.name = input.name
   user.roles = input.roles
@@ -89,6 +91,14 @@ export async function listAudit(em: EntityManager, q: { entityType?: string; ent
   if (q.entityId) where.entityId = q.entityId
   const rows = await em.find(AuditEventSchema, where, { orderBy: { id: 'desc' }, limit: q.limit })
   return {
-    items: rows.map((r) => ({ id: r.id, at: r.at.toISOString(), actorEmail: r.actorEmail ?? null, action: r.action, entityType: r.entityType, entityId: r.entityId, detail: r.detail ?? null })),
+    items: rows.map((r) => ({
+      id: r.id,
+      at: r.at.toISOString(),
+      actorEmail: r.actorEmail ?? null,
+      action: r.action,
+      entityType: r.entityType,
+      entityId: r.entityId,
+      detail: r.detail ?? null,
+    })),
   }
 }

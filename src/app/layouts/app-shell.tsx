@@ -28,7 +28,10 @@ export function AppShell() {
   const items = NAV.filter((n) => n.roles.some((r) => user?.roles.includes(r)))
   return (
     <div className="min-h-screen">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <header className="sticky top-0 z-30 border-b border-ink-800 bg-ink-900 text-white print:hidden">

@@ -9,7 +9,12 @@ const variants: Record<Variant, string> = {
   danger: 'bg-blocked-solid text-white hover:brightness-95 disabled:bg-ink-300',
 }
 
-export function Button({ variant = 'primary', size = 'md', className, ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; size?: 'md' | 'lg' | 'sm' }) {
+export function Button({
+  variant = 'primary',
+  size = 'md',
+  className,
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; size?: 'md' | 'lg' | 'sm' }) {
   return (
     <button
       type="button"

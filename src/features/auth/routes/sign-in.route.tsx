@@ -21,7 +21,8 @@ export function Component() {
       },
     }),
   )
-  const error = signIn.error instanceof ApiError ? signIn.error.body.detail : signIn.error ? 'Could not reach the server. Check the connection and try again.' : null
+  const error =
+    signIn.error instanceof ApiError ? signIn.error.body.detail : signIn.error ? 'Could not reach the server. Check the connection and try again.' : null
   return (
     <main className="grid min-h-screen place-items-center bg-ink-900 px-4">
       <div className="w-full max-w-sm">
@@ -35,10 +36,29 @@ export function Component() {
         <form onSubmit={onSubmit} noValidate className="space-y-4 rounded-card bg-white p-6 shadow-xl">
           <h1 className="text-lg font-semibold">Sign in</h1>
           <Field label="E-mail" error={form.formState.errors.email?.message}>
-            {(id, d) => <Input id={id} aria-describedby={d} aria-invalid={!!form.formState.errors.email} type="email" autoComplete="username" autoFocus {...form.register('email')} />}
+            {(id, d) => (
+              <Input
+                id={id}
+                aria-describedby={d}
+                aria-invalid={!!form.formState.errors.email}
+                type="email"
+                autoComplete="username"
+                autoFocus
+                {...form.register('email')}
+              />
+            )}
           </Field>
           <Field label="Password" error={form.formState.errors.password?.message}>
-            {(id, d) => <Input id={id} aria-describedby={d} aria-invalid={!!form.formState.errors.password} type="password" autoComplete="current-password" {...form.register('password')} />}
+            {(id, d) => (
+              <Input
+                id={id}
+                aria-describedby={d}
+                aria-invalid={!!form.formState.errors.password}
+                type="password"
+                autoComplete="current-password"
+                {...form.register('password')}
+              />
+            )}
           </Field>
           {error && (
             <p role="alert" className="rounded border border-blocked-border bg-blocked-bg px-3 py-2 text-sm text-blocked-fg">

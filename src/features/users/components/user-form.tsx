@@ -100,7 +100,11 @@ export function UserForm({ user, onDone }: { user: User | null; onDone: () => vo
             </label>
           ))}
         </div>
-        {errors.roles && <p className="mt-1 text-xs font-medium text-blocked-fg" role="alert">{errors.roles.message}</p>}
+        {errors.roles && (
+          <p className="mt-1 text-xs font-medium text-blocked-fg" role="alert">
+            {errors.roles.message}
+          </p>
+        )}
       </fieldset>
       {roles.includes('customer') && (
         <Field label="Customer company" error={errors.customerId?.message}>
@@ -121,7 +125,11 @@ export function UserForm({ user, onDone }: { user: User | null; onDone: () => vo
           <input type="checkbox" className="size-4" {...form.register('active')} /> Active (may sign in)
         </label>
       )}
-      <Field label={user ? 'New password (leave empty to keep)' : 'First password'} hint="At least 10 characters. Tell the person in person, not by e-mail." error={errors.password?.message}>
+      <Field
+        label={user ? 'New password (leave empty to keep)' : 'First password'}
+        hint="At least 10 characters. Tell the person in person, not by e-mail."
+        error={errors.password?.message}
+      >
         {(id, d) => <Input id={id} aria-describedby={d} type="password" autoComplete="new-password" {...form.register('password')} />}
       </Field>
       {errors.root && (

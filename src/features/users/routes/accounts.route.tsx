@@ -13,7 +13,11 @@ export function Component() {
   const [editing, setEditing] = useState<User | 'new' | null>(null)
   return (
     <div>
-      <PageHeader title="Accounts" subtitle="Who may sign in, and what each person may do." actions={<Button onClick={() => setEditing('new')}>New account</Button>} />
+      <PageHeader
+        title="Accounts"
+        subtitle="Who may sign in, and what each person may do."
+        actions={<Button onClick={() => setEditing('new')}>New account</Button>}
+      />
       <div className="grid gap-5 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <Card title="Accounts">
           {users.isPending ? (
@@ -25,10 +29,18 @@ export function Component() {
               <caption className="sr-only">Accounts; choose one to edit it</caption>
               <thead>
                 <tr className="border-b border-ink-200 text-left text-xs uppercase tracking-wide text-ink-600">
-                  <th scope="col" className="py-2 pr-3">Name</th>
-                  <th scope="col" className="py-2 pr-3">E-mail</th>
-                  <th scope="col" className="py-2 pr-3">Roles</th>
-                  <th scope="col" className="py-2">State</th>
+                  <th scope="col" className="py-2 pr-3">
+                    Name
+                  </th>
+                  <th scope="col" className="py-2 pr-3">
+                    E-mail
+                  </th>
+                  <th scope="col" className="py-2 pr-3">
+                    Roles
+                  </th>
+                  <th scope="col" className="py-2">
+                    State
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -63,17 +75,27 @@ export function Component() {
         ) : audit.isError ? (
           <ErrorState error={audit.error} retry={() => audit.refetch()} />
         ) : audit.data.items.length === 0 ? (
-          <EmptyState title="Nothing recorded yet">Every change to orders, plans, runs, certificates and accounts is recorded here with who made it and when.</EmptyState>
+          <EmptyState title="Nothing recorded yet">
+            Every change to orders, plans, runs, certificates and accounts is recorded here with who made it and when.
+          </EmptyState>
         ) : (
           <div className="overflow-x-auto">
             <table className="w-full text-sm">
               <caption className="sr-only">Audit trail</caption>
               <thead>
                 <tr className="border-b border-ink-200 text-left text-xs uppercase tracking-wide text-ink-600">
-                  <th scope="col" className="py-2 pr-3">When</th>
-                  <th scope="col" className="py-2 pr-3">Who</th>
-                  <th scope="col" className="py-2 pr-3">What</th>
-                  <th scope="col" className="py-2">Record</th>
+                  <th scope="col" className="py-2 pr-3">
+                    When
+                  </th>
+                  <th scope="col" className="py-2 pr-3">
+                    Who
+                  </th>
+                  <th scope="col" className="py-2 pr-3">
+                    What
+                  </th>
+                  <th scope="col" className="py-2">
+                    Record
+                  </th>
                 </tr>
               </thead>
               <tbody className="num">
