@@ -1,12 +1,21 @@
 import type { MikroORM } from '@mikro-orm/core'
 import session from 'express-session'
 
+/** A session's stored expiry is moved forward at most this often (per process), not on every request. */
+export const TOUCH_INTERVAL_MS = 60_000
+/** Sessions whose last write this process remembers (beyond it the memory is cleared: one extra write each). */
+const TOUCH_MEMORY = 10_000
+
 /**
  * express-session store on the app's own database (SQLite or PostgreSQL through MikroORM), so
  * sessions survive a restart and are shared by every app process. Expired rows are purged lazily.
+ * With a rolling session every request touches the session; the store writes the new expiry only when it
+ * moved by TOUCH_INTERVAL_MS or more since this process last wrote it, so a signed-in read is no database write.
  */
 export class DatabaseSessionStore extends session.Store {
   private lastPurgeMs = 0
+  /** sid → expiry (ms) this process last wrote */
+  private readonly written = new Map<string, number>()
 
   constructor(private readonly orm: MikroORM) {
     super()
@@ -39,23 +48,37 @@ export class DatabaseSessionStore extends session.Store {
         'insert into sessions (sid, data, expires_at) values (?, ?, ?) on conflict (sid) do update set data = excluded.data, expires_at = excluded.expires_at',
         [sid, data, this.expiry(sess)],
       )
+      .then(() => this.remember(sid, this.expiry(sess)))
       .then(() => this.maybePurge())
       .then(() => cb?.())
       .catch((err) => cb?.(err))
   }
 
   override touch(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void): void {
+    const expires = this.expiry(sess)
+    const last = this.written.get(sid)
+    if (last !== undefined && expires - last < TOUCH_INTERVAL_MS) {
+      cb?.()
+      return
+    }
     this.conn()
-      .execute('update sessions set expires_at = ? where sid = ?', [this.expiry(sess), sid])
+      .execute('update sessions set expires_at = ? where sid = ?', [expires, sid])
+      .then(() => this.remember(sid, expires))
       .then(() => cb?.())
       .catch((err) => cb?.(err))
   }
 
   override destroy(sid: string, cb?: (err?: unknown) => void): void {
+    this.written.delete(sid)
     this.conn()
       .execute('delete from sessions where sid = ?', [sid])
       .then(() => cb?.())
       .catch((err) => cb?.(err))
+  }
+
+  private remember(sid: string, expires: number): void {
+    if (this.written.size >= TOUCH_MEMORY && !this.written.has(sid)) this.written.clear()
+    this.written.set(sid, expires)
   }
 
   private async maybePurge(): Promise<void> {
