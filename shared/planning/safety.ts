@@ -550,7 +550,7 @@ export function safetyFindings(input: SafetyInput): SafetyResult {
   if (oxidising) subsidiary.push('5.1')
   if (toxic && flammable) subsidiary.push('2.1')
   if (lc50 !== null)
-    notes.push(`LC50 of the mixture by additivity, 1/Σ(xᵢ/LC50ᵢ) = ${Math.round(lc50)} ppm (ADR 2.2.2.1.5; LC50 values from memory, unverified).`)
+    notes.push(`LC50 of the mixture by additivity, 1/Σ(xᵢ/LC50ᵢ) = ${formatLc50Ppm(lc50)} (ADR 2.2.2.1.5; LC50 values from memory, unverified).`)
   if (flammable) {
     warnings.push({
       code: 'FLAMMABLE_MIXTURE',
@@ -582,7 +582,7 @@ export function safetyFindings(input: SafetyInput): SafetyResult {
       caution: CAUTIONS.toxic,
       message: toxic
         ? `LC50 of the mixture ${Math.round(lc50!)} ppm ≤ 5000 ppm: toxic gas, Division 2.3.${lc50! <= 200 ? ' LC50 ≤ 200 ppm: no pressure-relief device on the cylinder (ADR P200 (2)).' : ''}`
-        : `Contains toxic ${toxicComponents.map((id) => gasFacts(id).formula).join(', ')} (mixture LC50 ${Math.round(lc50!)} ppm > 5000 ppm, not Division 2.3). The pure parent gas is handled as toxic.`,
+        : `Contains toxic ${toxicComponents.map((id) => gasFacts(id).formula).join(', ')} (mixture LC50 ${formatLc50Ppm(lc50!)} > 5000 ppm, not Division 2.3). The pure parent gas is handled as toxic.`,
     })
   }
   return {
@@ -591,4 +591,12 @@ export function safetyFindings(input: SafetyInput): SafetyResult {
     classification: { flammable, flammabilityIndex: index, oxidisingPower: op, oxidising, lc50MixPpm: lc50, toxic, division, subsidiary, notes },
     minimumSafeTemperatureK,
   }
+}
+
+/**
+ * An additivity LC50 above 1 000 000 ppm (100 %) means even the undiluted mixture is below the lethal
+ * concentration: say so instead of printing an impossible concentration.
+ */
+export function formatLc50Ppm(lc50Ppm: number): string {
+  return lc50Ppm > 1_000_000 ? 'above 1 000 000 ppm (the mixture itself is below the LC50)' : `${Math.round(lc50Ppm)} ppm`
 }

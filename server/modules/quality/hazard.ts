@@ -54,7 +54,7 @@ export function hazardFor(components: readonly { gas: string; fraction: number }
   if (fuelAndOxidiser) statement.push('Contains both fuel and oxidiser: flammability is decided by test or expert assessment, not by calculation.')
   else if (flammable) statement.push('Flammable gas mixture (ISO 10156 calculation).')
   if (oxidising) statement.push('Oxidising: may cause or intensify fire (more oxidising than air, ISO 10156).')
-  if (toxic) statement.push(`Toxic if inhaled${lc50 !== null ? ` (LC50 of the mixture about ${Math.round(lc50)} ppm by volume)` : ''}.`)
+  if (toxic) statement.push(`Toxic if inhaled${lc50 !== null ? ` (LC50 of the mixture ${lc50 > 1_000_000 ? 'above 1 000 000 ppm' : `about ${Math.round(lc50)} ppm`} by volume)` : ''}.`)
   else if (flags.has('toxic')) statement.push('Contains a toxic component below the toxic-mixture threshold: avoid breathing the gas.')
   if (flags.has('corrosive')) statement.push('Contains a corrosive component.')
   const oxygen = known.filter((c) => c.gas === 'oxygen' || c.gas === 'air').reduce((s, c) => s + c.fraction * (c.gas === 'air' ? 0.2095 : 1), 0)

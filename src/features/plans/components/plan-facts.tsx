@@ -93,7 +93,7 @@ export function Classification({ plan }: { plan: FillPlanResponse }) {
       <dt className="text-ink-600">Toxic</dt>
       <dd>
         {c.toxic ? 'yes' : 'no'}
-        {c.lc50MixPpm !== null ? ` · LC50 of the mixture ${fmt(c.lc50MixPpm, 0)} ppm` : ''}
+        {c.lc50MixPpm !== null ? ` · LC50 of the mixture ${c.lc50MixPpm > 1_000_000 ? 'above 1 000 000 ppm' : `${fmt(c.lc50MixPpm, 0)} ppm`}` : ''}
       </dd>
       {plan.minimumSafeTemperature && (
         <>
