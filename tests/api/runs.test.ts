@@ -626,7 +626,7 @@ describe('pause, overshoot and finish', () => {
 })
 
 describe('demo seed step', () => {
-  it('books runs for an approved plan with none, starts one on an order already filling, and never books twice', async () => {
+  it('books runs for an approved plan with none, starts one and finishes another on an order already filling, and never books twice', async () => {
     const { planId, orderId } = await approvedPlan(2)
     const em = t.orm.em.fork()
     const order = await em.findOneOrFail(OrderSchema, { id: orderId })
@@ -639,8 +639,12 @@ describe('demo seed step', () => {
     expect(runs).toHaveLength(2)
     expect(runs[0].status).toBe('in-progress')
     expect(runs[0].currentStep).toBe(1)
-    expect(runs[1].status).toBe('ready')
+    // the second is finished (every step on target) and waits for QA
+    expect(runs[1].status).toBe('completed')
     expect(await t.orm.em.fork().count(FillReadingSchema, { run: runs[0].id })).toBe(1)
+    const finished = await detail(technician, runs[1].id)
+    expect(finished.readings.length).toBe(finished.steps.length)
+    expect(finished.readings.every((r: { outcome: string }) => r.outcome === 'on-target')).toBe(true)
     const seeded = await detail(technician, runs[0].id)
     expect(seeded.readings[0].outcome).toBe('on-target')
     await t.orm.em.fork().transactional((tx) => seedRuns(tx))

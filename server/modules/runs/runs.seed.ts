@@ -17,7 +17,7 @@ const RUNS_PER_PLAN = 2
 /**
  * Demo fill runs: for each approved plan of an order at 'planned' or 'filling' whose line has no runs yet, books up
  * to two free cylinders that fit the plan for the demo technician today. On an order already at the manifold the
- * first run has its first step recorded on target. Seeds nothing when no plan is approved (the plans seed runs first).
+ * first run has its first step recorded on target and the second is finished, waiting for QA. Seeds nothing when no plan is approved (the plans seed runs first).
  */
 export async function seedRuns(em: EntityManager): Promise<void> {
   const plans = await em.find(
@@ -86,6 +86,32 @@ export async function seedRuns(em: EntityManager): Promise<void> {
       run.startedAt = new Date()
       run.currentStep = 1
       run.cylinder.status = 'filling'
+    }
+    if (line.order.status === 'filling' && runs[1]) {
+      // a second cylinder of that order finished earlier today: every step recorded on target, waiting for QA
+      const run = await em.findOneOrFail(FillRunSchema, { id: runs[1].id }, { populate: ['cylinder'] as never })
+      const state = readState(run.targets)
+      state.steps.forEach((step, stepIndex) => {
+        em.create(FillReadingSchema, {
+          run,
+          stepIndex,
+          gas: step.gas,
+          pressureBarAbs: step.cumulativeAbsBar,
+          pressureBarGauge: step.cumulativeGaugeBar,
+          temperatureC: celsiusOf(result.data.fillTemperature),
+          scaleKg: null,
+          outcome: 'on-target',
+          supersedes: null,
+          recordedById: tech.id,
+          clientRequestId: `demo-seed-run-${run.id}-${stepIndex}`,
+        })
+      })
+      const finishedAt = new Date(Date.now() - 2 * 3600_000)
+      run.status = 'completed'
+      run.startedAt = new Date(finishedAt.getTime() - 40 * 60_000)
+      run.completedAt = finishedAt
+      run.currentStep = state.steps.length
+      run.cylinder.status = 'awaiting-analysis'
     }
     await em.flush()
   }
