@@ -520,7 +520,7 @@ export function safetyFindings(input: SafetyInput): SafetyResult {
       code: 'CYLINDER_TEST_DATE_UNKNOWN',
       severity: 'caution',
       caution: CAUTIONS.testDate,
-      message: 'No next test date recorded for the cylinder; check the marking before filling.',
+      message: 'No periodic-test date known for this plan (no cylinder chosen, or none recorded): check the cylinder’s test marking before filling.',
     })
   }
 

@@ -320,7 +320,8 @@ export function releaseDefaults(run: RunWithContext): ReleaseDefaults {
   return {
     validityMonths: reactive ? 12 : 36,
     minimumUsePressureBarGauge: 7,
-    storageMinC: minC === null ? -20 : Math.ceil(minC),
+    // the certificate states storage limits within -60..60 °C (the release schema's range)
+    storageMinC: minC === null ? -20 : Math.min(60, Math.max(-60, Math.ceil(minC))),
     storageMaxC: 50,
     storageMinSource:
       minC === null ? 'No condensable component in the plan: −20 °C (shop practice).' : 'Lowest condensation-free temperature from the approved fill plan.',

@@ -45,7 +45,7 @@ export function AppShell() {
               <NavLink
                 key={item.href}
                 to={item.href}
-                end={item.href === '/'}
+                end={item.href === '/' || items.some((other) => other !== item && other.href.startsWith(`${item.href}/`))}
                 className={({ isActive }) =>
                   cn('rounded px-3 py-2 text-sm', isActive ? 'bg-copper-600 text-white' : 'text-ink-200 hover:bg-ink-800 hover:text-white')
                 }

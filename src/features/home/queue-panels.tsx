@@ -1,12 +1,12 @@
 import type { ReactNode } from 'react'
 import type { Role } from '#shared/schemas/auth.ts'
-import { Card, EmptyState } from '#src/components/ui/states.tsx'
 import { salesQueuePanels } from '#src/features/orders/components/sales-queue-panels.tsx'
 import { OrdersNeedingPlan, PlansAwaitingApproval } from '#src/features/plans/components/plan-queue.tsx'
 import { CustomerOrdersPanel } from '#src/features/portal/components/customer-orders-panel.tsx'
 import { TestsDuePanel } from '#src/features/cylinders/components/tests-due-panel.tsx'
 import { MyFillsPanel } from '#src/features/runs/components/my-fills-panel.tsx'
 import { QaAwaitingPanel, QaReadyPanel } from '#src/features/quality/components/qa-queue-lists.tsx'
+import { AccountsPanel, RecentActivityPanel } from '#src/features/users/components/admin-panels.tsx'
 
 /**
  * The work-queue panels of each role's home page. Each entry returns the panels for one role;
@@ -14,9 +14,8 @@ import { QaAwaitingPanel, QaReadyPanel } from '#src/features/quality/components/
  */
 export const roleQueuePanels: Partial<Record<Role, () => ReactNode[]>> = {
   admin: () => [
-    <Card key="admin-accounts" title="Accounts">
-      <EmptyState title="No account changes waiting">New staff and customer accounts you create appear here until they first sign in.</EmptyState>
-    </Card>,
+    <AccountsPanel key="admin-accounts" />,
+    <RecentActivityPanel key="admin-activity" />,
     <TestsDuePanel key="cylinder-tests-due" />,
   ],
   sales: salesQueuePanels,

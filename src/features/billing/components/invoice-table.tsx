@@ -1,10 +1,11 @@
 import { formatMoney, type Invoice } from '#shared/schemas/billing.ts'
+import { ScrollRegion } from '#src/components/scroll-region.tsx'
 import { InvoiceStatusPill } from './invoice-status.tsx'
 
 /** Invoices with status and amount; `pay` adds the button that opens the provider's hosted payment page. */
 export function InvoiceTable({ invoices, showCustomer, pay }: { invoices: Invoice[]; showCustomer: boolean; pay: boolean }) {
   return (
-    <div className="overflow-x-auto">
+    <ScrollRegion label="Invoices">
       <table className="w-full text-sm">
         <caption className="sr-only">Invoices</caption>
         <thead>
@@ -63,6 +64,6 @@ export function InvoiceTable({ invoices, showCustomer, pay }: { invoices: Invoic
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   )
 }

@@ -130,7 +130,7 @@ export function CurrentStep({
               <span className="inline-flex items-center rounded-full border-2 border-ink-900 bg-ink-50 px-4 py-1 text-3xl font-bold sm:text-4xl">
                 {step.formula ? <Formula formula={step.formula} /> : 'Premix'}
               </span>
-              <span>{step.formula ? step.gas : step.label}</span>
+              <span>{step.label}</span>
             </>
           ) : (
             <span className="inline-flex items-center rounded-full border-2 border-ink-900 bg-caution-bg px-4 py-1 text-3xl font-bold">{step.label}</span>
@@ -190,7 +190,7 @@ export function CurrentStep({
           submit()
         }}
       >
-        <div className="grid gap-4 sm:grid-cols-2">
+        <div className="grid grid-cols-[minmax(0,1fr)] gap-4 sm:grid-cols-2">
           <label className="flex flex-col gap-1 text-lg font-semibold text-ink-900">
             Cylinder temperature ({temperatureSymbol(units)})
             <input
@@ -199,7 +199,7 @@ export function CurrentStep({
               value={temperatureText}
               onChange={(e) => setTemperatureText(e.target.value)}
               aria-invalid={!temperatureOk}
-              className="num min-h-16 rounded-md border-2 border-ink-400 bg-white px-4 text-4xl text-ink-950 focus:border-copper-600 aria-[invalid=true]:border-blocked-solid"
+              className="num min-h-16 w-full min-w-0 rounded-md border-2 border-ink-400 bg-white px-4 text-4xl text-ink-950 focus:border-copper-600 aria-[invalid=true]:border-blocked-solid"
             />
             {!temperatureOk && <span className="text-base font-medium text-blocked-fg">Type the temperature you measured on the cylinder.</span>}
           </label>
@@ -239,7 +239,7 @@ export function CurrentStep({
                 autoComplete="off"
                 value={scaleText}
                 onChange={(e) => setScaleText(e.target.value)}
-                className="num min-h-16 rounded-md border-2 border-ink-400 bg-white px-4 text-4xl text-ink-950 focus:border-copper-600"
+                className="num min-h-16 w-full min-w-0 rounded-md border-2 border-ink-400 bg-white px-4 text-4xl text-ink-950 focus:border-copper-600"
               />
             </label>
           )}

@@ -6,9 +6,10 @@ import { apiClient } from '#src/lib/api-client.ts'
 export const userQueries = {
   all: () => ['users'] as const,
   list: () => queryOptions({ queryKey: [...userQueries.all(), 'list'], queryFn: ({ signal }) => apiClient.get('/api/users', UserListSchema, { signal }) }),
+  auditAll: () => ['audit'] as const,
   audit: (entityType?: string) =>
     queryOptions({
-      queryKey: ['audit', { entityType: entityType ?? '' }],
+      queryKey: [...userQueries.auditAll(), { entityType: entityType ?? '' }],
       queryFn: ({ signal }) => apiClient.get('/api/audit', AuditListSchema, { query: { entityType, limit: 100 }, signal }),
     }),
 }
@@ -17,7 +18,7 @@ export function useCreateUser() {
   const qc = useQueryClient()
   return useMutation({
     mutationFn: (input: UserCreateInput) => apiClient.post('/api/users', UserSchema, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: userQueries.all() }),
+    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: userQueries.all() }), qc.invalidateQueries({ queryKey: userQueries.auditAll() })]),
   })
 }
 
@@ -25,10 +26,14 @@ export function useUpdateUser(id: number) {
   const qc = useQueryClient()
   return useMutation({
     mutationFn: (input: UserUpdateInput) => apiClient.put(`/api/users/${id}`, UserSchema, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: userQueries.all() }),
+    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: userQueries.all() }), qc.invalidateQueries({ queryKey: userQueries.auditAll() })]),
   })
 }
 
 export function useResetPassword(id: number) {
-  return useMutation({ mutationFn: (password: string) => apiClient.post(`/api/users/${id}/password`, OkSchema, { password }) })
+  const qc = useQueryClient()
+  return useMutation({
+    mutationFn: (password: string) => apiClient.post(`/api/users/${id}/password`, OkSchema, { password }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: userQueries.auditAll() }),
+  })
 }
