@@ -3,7 +3,7 @@ import { defineConfig } from 'vitest/config'
 // Unit tests (tests/unit) and API tests (tests/api). End-to-end tests run with Playwright (tests/e2e).
 export default defineConfig({
   test: {
-    include: ['tests/unit/**/*.test.ts', 'tests/unit/**/*.test.tsx', 'tests/api/**/*.test.ts'],
+    include: ['tests/unit/**/*.test.ts', 'tests/unit/**/*.test.tsx', 'tests/api/**/*.test.ts', 'tests/reliability/**/*.test.ts'],
     environment: 'node',
     execArgv: ['--import', 'tsx'],
     testTimeout: 30_000,

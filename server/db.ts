@@ -40,7 +40,7 @@ export async function ormOptions(settings: DbSettings): Promise<Options> {
         silent: true,
         transactional: true,
         snapshot: true,
-      snapshotName: '.snapshot',
+        snapshotName: '.snapshot',
         emit: 'ts',
       },
     } as Options
@@ -63,7 +63,7 @@ export async function ormOptions(settings: DbSettings): Promise<Options> {
   } as Options
 }
 
-/** Opens the ORM; SQLite gets WAL journalling, foreign keys and a busy timeout. */
+/** Opens the ORM; SQLite gets WAL journalling, foreign keys, a busy timeout and immediate transactions. */
 export async function initOrm(settings: DbSettings): Promise<MikroORM> {
   const orm = await MikroORM.init(await ormOptions(settings))
   if (!settings.databaseUrl) {
@@ -72,8 +72,32 @@ export async function initOrm(settings: DbSettings): Promise<MikroORM> {
     await conn.execute('pragma foreign_keys = ON')
     await conn.execute('pragma busy_timeout = 5000')
     await conn.execute('pragma synchronous = NORMAL')
+    beginImmediate(orm)
   }
   return orm
+}
+
+interface KnexTransactionLike {
+  begin(conn: unknown): unknown
+  query(conn: unknown, sql: string): unknown
+}
+
+/**
+ * SQLite transactions take the write lock when they begin (BEGIN IMMEDIATE) instead of at their first
+ * write. A deferred transaction that reads and then writes fails at once with "database is locked" when
+ * another connection wrote in between — SQLite cannot wait there — which several app processes
+ * (WEB_CONCURRENCY > 1), or the app and a CLI, writing to one file turn into 500s. BEGIN IMMEDIATE
+ * waits for the lock up to busy_timeout instead. (knex begins SQLite transactions with a plain BEGIN.)
+ */
+function beginImmediate(orm: MikroORM): void {
+  const client = (orm.em.getConnection() as unknown as { getKnex(): { client: { transaction(...args: unknown[]): KnexTransactionLike } } }).getKnex().client
+  const create = client.transaction.bind(client)
+  client.transaction = (...args: unknown[]) => {
+    const trx = create(...args)
+    // begin() runs after the pool hands over the connection, so replacing it here is in time
+    trx.begin = (conn: unknown) => trx.query(conn, 'BEGIN IMMEDIATE;')
+    return trx
+  }
 }
 
 export async function migrateUp(orm: MikroORM): Promise<void> {

@@ -1,4 +1,6 @@
 import cluster from 'node:cluster'
+import { existsSync } from 'node:fs'
+import { resolve } from 'node:path'
 import { loadEnv } from './env.ts'
 import { createLogger, prepareDatabase, startApp } from './start.ts'
 
@@ -6,6 +8,9 @@ import { createLogger, prepareDatabase, startApp } from './start.ts'
  * Entry point of `npm start`: env → migrate + seed (primary) → fakes (when START_FAKES) → app
  * processes (WEB_CONCURRENCY workers behind one port via node:cluster, or this process alone).
  */
+// a line in .env is a setting too (README); variables already in the environment win
+const dotEnv = resolve(import.meta.dirname, '..', '.env')
+if (existsSync(dotEnv)) process.loadEnvFile(dotEnv)
 const env = loadEnv()
 const log = createLogger(env)
 

@@ -6,6 +6,7 @@ import { createApp } from './app.ts'
 import { initOrm, migrateUp } from './db.ts'
 import type { Env } from './env.ts'
 import type { AppDeps } from './lib/deps.ts'
+import { applyImmutabilityTriggers } from './lib/immutability.ts'
 import { createMailer } from './lib/mailer.ts'
 import { createPayments } from './lib/payments.ts'
 import { seedDemoIfEmpty } from './seed/demo.ts'
@@ -40,10 +41,33 @@ export async function prepareDatabase(env: Env, log: pino.Logger): Promise<void>
   const orm = await initOrm(dbSettings(env))
   try {
     await migrateUp(orm)
+    await ensureImmutability(orm, Boolean(env.DATABASE_URL), log)
     if (env.SEED_DEMO === 'true' && (await seedDemoIfEmpty(orm, env.DEMO_PASSWORD))) log.info('seeded the demo scenario')
   } finally {
     await orm.close()
   }
+}
+
+const IMMUTABLE_TABLES = ['fill_readings', 'certificates']
+
+/**
+ * Evidence tables refuse UPDATE/DELETE whatever the migrations contain: the trigger statements are
+ * idempotent and run at every start, after the migrations (a migration that also creates them is fine).
+ */
+async function ensureImmutability(orm: MikroORM, postgres: boolean, log: pino.Logger): Promise<void> {
+  const conn = orm.em.getConnection()
+  const rows: { name: string }[] = postgres
+    ? await conn.execute<{ name: string }[]>(
+        `select table_name as name from information_schema.tables where table_schema = current_schema() and table_name in ('fill_readings', 'certificates')`,
+      )
+    : await conn.execute<{ name: string }[]>(`select name from sqlite_master where type = 'table' and name in ('fill_readings', 'certificates')`)
+  const present = new Set(rows.map((r) => r.name))
+  const missing = IMMUTABLE_TABLES.filter((t) => !present.has(t))
+  if (missing.length) {
+    log.error({ missing }, 'tables missing after the migrations: immutability triggers not installed (run migration:create?)')
+    return
+  }
+  await applyImmutabilityTriggers(orm, postgres)
 }
 
 /** Starts one app process: ORM, app, listen; closes cleanly on SIGTERM/SIGINT. */

@@ -23,6 +23,8 @@ export interface TestApp {
   /** e-mails the app sent during the test */
   sentMail: MailMessage[]
   dbPath: string
+  /** PostgreSQL URL of this app's own database when TEST_DATABASE_URL is set (else undefined: SQLite) */
+  databaseUrl?: string
   /** a supertest agent signed in as the demo account of the role, with its CSRF token */
   signIn(role: Role): Promise<SignedInAgent>
   /** a signed-out agent with a CSRF token */
@@ -45,9 +47,11 @@ export async function createTestApp(options: { payments?: AppDeps['payments']; s
   const dir = join(process.cwd(), 'tests', '.tmp')
   mkdirSync(dir, { recursive: true })
   const dbPath = join(dir, `api-${process.pid}-${Date.now()}-${counter++}.sqlite`)
-  const orm = await initOrm({ databasePath: dbPath })
+  // TEST_DATABASE_URL (a PostgreSQL role allowed to create databases): each test app gets its own database
+  const pg = process.env.TEST_DATABASE_URL ? await createPgTestDatabase(process.env.TEST_DATABASE_URL) : undefined
+  const orm = await initOrm({ databasePath: dbPath, databaseUrl: pg?.url })
   await orm.schema.createSchema()
-  await applyImmutabilityTriggers(orm)
+  await applyImmutabilityTriggers(orm, Boolean(pg))
   if (options.seed !== false) await seedDemoIfEmpty(orm, DEMO_PASSWORD)
   const sentMail: MailMessage[] = []
   const mailer: Mailer = {
@@ -64,7 +68,12 @@ export async function createTestApp(options: { payments?: AppDeps['payments']; s
     uploadDir: join(dir, `uploads-${process.pid}-${counter}`),
     webhookSecret: 'whsec_test_secret',
   }
-  const app = createApp(deps, { sessionSecret: 'test-session-secret-0123456789', cookieSecure: 'false', trustProxy: 'loopback', logger: pino({ level: 'silent' }) })
+  const app = createApp(deps, {
+    sessionSecret: 'test-session-secret-0123456789',
+    cookieSecure: 'false',
+    trustProxy: 'loopback',
+    logger: pino({ level: 'silent' }),
+  })
 
   async function anonymous(): Promise<SignedInAgent> {
     const agent = request.agent(app)
@@ -73,7 +82,11 @@ export async function createTestApp(options: { payments?: AppDeps['payments']; s
   }
   async function signIn(role: Role): Promise<SignedInAgent> {
     const a = await anonymous()
-    await a.agent.post('/api/auth/login').set('x-csrf-token', a.csrf).send({ email: `${role}@demo.test`, password: DEMO_PASSWORD }).expect(200)
+    await a.agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', a.csrf)
+      .send({ email: `${role}@demo.test`, password: DEMO_PASSWORD })
+      .expect(200)
     return a
   }
   return {
@@ -82,11 +95,30 @@ export async function createTestApp(options: { payments?: AppDeps['payments']; s
     deps,
     sentMail,
     dbPath,
+    databaseUrl: pg?.url,
     signIn,
     anonymous,
     async close() {
       await orm.close()
-      for (const suffix of ['', '-wal', '-shm']) rmSync(dbPath + suffix, { force: true })
+      if (pg) await pg.drop()
+      else for (const suffix of ['', '-wal', '-shm']) rmSync(dbPath + suffix, { force: true })
     },
   }
+}
+
+/** Creates an empty PostgreSQL database next to the one in `baseUrl`; `drop()` removes it. */
+async function createPgTestDatabase(baseUrl: string): Promise<{ url: string; drop(): Promise<void> }> {
+  const name = `fw_test_${process.pid}_${Date.now()}_${counter}`
+  const admin = async (sql: string) => {
+    const orm = await initOrm({ databasePath: ':memory:', databaseUrl: baseUrl })
+    try {
+      await orm.em.getConnection().execute(sql)
+    } finally {
+      await orm.close()
+    }
+  }
+  await admin(`create database "${name}"`)
+  const url = new URL(baseUrl)
+  url.pathname = `/${name}`
+  return { url: url.toString(), drop: () => admin(`drop database if exists "${name}" with (force)`) }
 }
