@@ -16,7 +16,9 @@ function newestMtime(path: string): number {
   return newest
 }
 
-const sources = ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'postcss.config.js', 'package-lock.json'].map((p) => join(root, p))
+const sources = ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'postcss.config.js', 'package-lock.json'].map((p) =>
+  join(root, p),
+)
 const builtAt = existsSync(built) ? statSync(built).mtimeMs : 0
 const sourceAt = Math.max(...sources.map(newestMtime))
 if (builtAt < sourceAt) {

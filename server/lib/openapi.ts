@@ -13,7 +13,10 @@ function toSchema(schema: z.ZodType, io: 'input' | 'output'): JsonSchema {
 
 function parameters(def: RouteDefinition<any, any, any>): JsonSchema[] {
   const out: JsonSchema[] = []
-  for (const [where, schema] of [['path', def.params], ['query', def.query]] as const) {
+  for (const [where, schema] of [
+    ['path', def.params],
+    ['query', def.query],
+  ] as const) {
     if (!schema) continue
     const json = toSchema(schema as z.ZodType, 'input')
     const props = (json.properties ?? {}) as Record<string, JsonSchema>

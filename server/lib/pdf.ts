@@ -21,7 +21,12 @@ export interface PdfFrame {
  * and on every page a footer with the identification and "page n of m". Call `finish()` for the bytes.
  */
 export function createPdf(frame: PdfFrame) {
-  const doc = new PDFDocument({ size: frame.size ?? 'A4', margins: { top: 72, bottom: 64, left: 56, right: 56 }, bufferPages: true, info: { Title: frame.title, Producer: 'Fillwright' } })
+  const doc = new PDFDocument({
+    size: frame.size ?? 'A4',
+    margins: { top: 72, bottom: 64, left: 56, right: 56 },
+    bufferPages: true,
+    info: { Title: frame.title, Producer: 'Fillwright' },
+  })
   doc.registerFont('body', INTER_REGULAR)
   doc.registerFont('bold', INTER_BOLD)
   doc.font('body').fontSize(10)
@@ -33,10 +38,23 @@ export function createPdf(frame: PdfFrame) {
     const { left, right, top } = doc.page.margins
     const width = doc.page.width - left - right
     doc.save()
-    doc.font('bold').fontSize(9).text(DEMO_SHOP.name, left, top - 44, { width: width / 2, lineBreak: false })
-    doc.font('body').fontSize(8).text(`${DEMO_SHOP.address} · ${DEMO_SHOP.phone}`, left, top - 32, { width: width / 2 + 60, lineBreak: false })
-    doc.font('bold').fontSize(11).text(frame.title, left + width / 2, top - 44, { width: width / 2, align: 'right', lineBreak: false })
-    doc.moveTo(left, top - 16).lineTo(left + width, top - 16).lineWidth(0.5).stroke('#000')
+    doc
+      .font('bold')
+      .fontSize(9)
+      .text(DEMO_SHOP.name, left, top - 44, { width: width / 2, lineBreak: false })
+    doc
+      .font('body')
+      .fontSize(8)
+      .text(`${DEMO_SHOP.address} · ${DEMO_SHOP.phone}`, left, top - 32, { width: width / 2 + 60, lineBreak: false })
+    doc
+      .font('bold')
+      .fontSize(11)
+      .text(frame.title, left + width / 2, top - 44, { width: width / 2, align: 'right', lineBreak: false })
+    doc
+      .moveTo(left, top - 16)
+      .lineTo(left + width, top - 16)
+      .lineWidth(0.5)
+      .stroke('#000')
     doc.restore()
     doc.font('body').fontSize(10).fillColor('#000')
     doc.x = left
@@ -49,7 +67,9 @@ export function createPdf(frame: PdfFrame) {
     doc,
     async finish(): Promise<Buffer> {
       const range = doc.bufferedPageRange()
-      const idText = Object.entries(frame.ids).map(([k, v]) => `${k}: ${v}`).join('   ')
+      const idText = Object.entries(frame.ids)
+        .map(([k, v]) => `${k}: ${v}`)
+        .join('   ')
       for (let i = range.start; i < range.start + range.count; i++) {
         doc.switchToPage(i)
         const { left, right, bottom } = doc.page.margins
@@ -73,23 +93,42 @@ export function createPdf(frame: PdfFrame) {
 export function pdfTable(doc: PDFKit.PDFDocument, columns: { header: string; width: number; align?: 'left' | 'right' | 'center' }[], rows: string[][]): void {
   const left = doc.page.margins.left
   const drawRow = (cells: string[], bold: boolean) => {
-    const heights = cells.map((c, i) => doc.font(bold ? 'bold' : 'body').fontSize(9).heightOfString(c, { width: columns[i].width - 6 }))
+    const heights = cells.map((c, i) =>
+      doc
+        .font(bold ? 'bold' : 'body')
+        .fontSize(9)
+        .heightOfString(c, { width: columns[i].width - 6 }),
+    )
     const h = Math.max(...heights) + 6
     if (doc.y + h > doc.page.height - doc.page.margins.bottom) {
       doc.addPage()
-      if (!bold) drawRow(columns.map((c) => c.header), true)
+      if (!bold)
+        drawRow(
+          columns.map((c) => c.header),
+          true,
+        )
     }
     const y = doc.y
     let x = left
     cells.forEach((c, i) => {
-      doc.font(bold ? 'bold' : 'body').fontSize(9).text(c, x + 3, y + 3, { width: columns[i].width - 6, align: columns[i].align ?? 'left' })
+      doc
+        .font(bold ? 'bold' : 'body')
+        .fontSize(9)
+        .text(c, x + 3, y + 3, { width: columns[i].width - 6, align: columns[i].align ?? 'left' })
       x += columns[i].width
     })
-    doc.moveTo(left, y + h).lineTo(x, y + h).lineWidth(bold ? 0.8 : 0.3).stroke('#000')
+    doc
+      .moveTo(left, y + h)
+      .lineTo(x, y + h)
+      .lineWidth(bold ? 0.8 : 0.3)
+      .stroke('#000')
     doc.x = left
     doc.y = y + h
   }
-  drawRow(columns.map((c) => c.header), true)
+  drawRow(
+    columns.map((c) => c.header),
+    true,
+  )
   for (const r of rows) drawRow(r, false)
   doc.moveDown(0.5)
 }

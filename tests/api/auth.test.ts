@@ -54,7 +54,10 @@ describe('sign-in contract', () => {
     const { agent, csrf } = await fresh.anonymous()
     const statuses: number[] = []
     for (let i = 0; i < 11; i++) {
-      const r = await agent.post('/api/auth/login').set('x-csrf-token', csrf).send({ email: 'technician@demo.test', password: `wrong-${i}` })
+      const r = await agent
+        .post('/api/auth/login')
+        .set('x-csrf-token', csrf)
+        .send({ email: 'technician@demo.test', password: `wrong-${i}` })
       statuses.push(r.status)
     }
     expect(statuses.slice(0, 10).every((s) => s === 401)).toBe(true)
@@ -74,7 +77,11 @@ describe('sign-in contract', () => {
 
   it('answers 413 for an oversized body', async () => {
     const { agent, csrf } = await t.anonymous()
-    await agent.post('/api/auth/login').set('x-csrf-token', csrf).send({ email: 'qa@demo.test', password: 'x'.repeat(1_100_000) }).expect(413)
+    await agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', csrf)
+      .send({ email: 'qa@demo.test', password: 'x'.repeat(1_100_000) })
+      .expect(413)
   })
 })
 
@@ -92,7 +99,9 @@ describe('health and API description', () => {
       for (const [method, op] of Object.entries(ops)) {
         if (op['x-roles'].length === 0) continue
         const url = path.replace(/\{[^}]+\}/g, '1')
-        const res = await (agent as unknown as Record<string, (u: string) => { set: (k: string, v: string) => Promise<{ status: number }> }>)[method](url).set('x-csrf-token', csrf)
+        const res = await (agent as unknown as Record<string, (u: string) => { set: (k: string, v: string) => Promise<{ status: number }> }>)
+          [method](url)
+          .set('x-csrf-token', csrf)
         expect(res.status, `${method.toUpperCase()} ${path}`).toBe(401)
         checked++
       }

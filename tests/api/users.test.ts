@@ -19,7 +19,11 @@ describe('accounts (admin)', () => {
       .expect(201)
     expect(created.body.roles).toEqual(['blender', 'qa'])
     const other = await t.anonymous()
-    const login = await other.agent.post('/api/auth/login').set('x-csrf-token', other.csrf).send({ email: 'new.blender@demo.test', password: 'a-long-first-password' }).expect(200)
+    const login = await other.agent
+      .post('/api/auth/login')
+      .set('x-csrf-token', other.csrf)
+      .send({ email: 'new.blender@demo.test', password: 'a-long-first-password' })
+      .expect(200)
     expect(login.body.user.roles).toEqual(['blender', 'qa'])
     const audit = await agent.get('/api/audit').query({ entityType: 'user' }).expect(200)
     expect(audit.body.items.some((e: { action: string }) => e.action === 'user.created')).toBe(true)
@@ -40,11 +44,19 @@ describe('accounts (admin)', () => {
     const qa = await t.signIn('qa')
     const list = await admin.agent.get('/api/users').expect(200)
     const qaUser = list.body.items.find((u: { email: string }) => u.email === 'qa@demo.test')
-    await admin.agent.put(`/api/users/${qaUser.id}`).set('x-csrf-token', admin.csrf).send({ name: qaUser.name, roles: ['qa'], customerId: null, active: false }).expect(200)
+    await admin.agent
+      .put(`/api/users/${qaUser.id}`)
+      .set('x-csrf-token', admin.csrf)
+      .send({ name: qaUser.name, roles: ['qa'], customerId: null, active: false })
+      .expect(200)
     await qa.agent.get('/api/auth/me').expect(401)
     const again = await t.anonymous()
     await again.agent.post('/api/auth/login').set('x-csrf-token', again.csrf).send({ email: 'qa@demo.test', password: DEMO_PASSWORD }).expect(401)
-    await admin.agent.put(`/api/users/${qaUser.id}`).set('x-csrf-token', admin.csrf).send({ name: qaUser.name, roles: ['qa'], customerId: null, active: true }).expect(200)
+    await admin.agent
+      .put(`/api/users/${qaUser.id}`)
+      .set('x-csrf-token', admin.csrf)
+      .send({ name: qaUser.name, roles: ['qa'], customerId: null, active: true })
+      .expect(200)
   })
 
   it('only admins manage accounts', async () => {
