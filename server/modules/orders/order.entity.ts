@@ -73,14 +73,14 @@ export const OrderLineSchema = defineEntity({
     components: p.json<SpecComponent[]>(),
     balanceGas: p.string().length(64),
     /** blend tolerance, relative % of each minor component's value */
-    blendTolerancePct: p.float(),
+    blendTolerancePct: p.float().columnType('double precision'),
     /** certification (analysis) expanded uncertainty, relative % */
-    certificationUncertaintyPct: p.float(),
-    waterVolumeL: p.float(),
+    certificationUncertaintyPct: p.float().columnType('double precision'),
+    waterVolumeL: p.float().columnType('double precision'),
     valveOutlet: p.string().length(64),
     quantity: p.integer(),
     /** settled filling pressure, bar gauge at 15 °C */
-    finalPressureBarGauge: p.float(),
+    finalPressureBarGauge: p.float().columnType('double precision'),
     method: p.enum(['partial-pressure', 'gravimetric']).default('partial-pressure'),
     priceMinor: p.integer().default(0),
     /** the breakdown behind priceMinor, as computed when the line was last saved or quoted */

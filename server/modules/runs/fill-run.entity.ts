@@ -47,11 +47,11 @@ export const FillReadingSchema = defineEntity({
     stepIndex: p.integer(),
     gas: p.string().length(64),
     /** absolute pressure in bar read at the manifold gauge (converted from gauge with the stated atmosphere) */
-    pressureBarAbs: p.float().nullable(),
-    pressureBarGauge: p.float().nullable(),
-    temperatureC: p.float().nullable(),
+    pressureBarAbs: p.float().columnType('double precision').nullable(),
+    pressureBarGauge: p.float().columnType('double precision').nullable(),
+    temperatureC: p.float().columnType('double precision').nullable(),
     /** cumulative scale reading, kg (gravimetric) */
-    scaleKg: p.float().nullable(),
+    scaleKg: p.float().columnType('double precision').nullable(),
     outcome: p.enum(['on-target', 'under', 'over']),
     supersedes: p.integer().nullable(),
     recordedById: p.integer(),
