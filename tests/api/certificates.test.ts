@@ -69,7 +69,7 @@ describe('corrections are new revisions', () => {
     const { id, number } = await released()
     const mails = t.sentMail.length
     const corrected = structuredClone(GOOD)
-    corrected.results[1].value = 502 // a transcription error in the CO value
+    corrected.results[1].value = 502 // a copying error in the CO value
     const res = await correct(id, { password: DEMO_PASSWORD, reason: 'CO value mistyped: 502 µmol/mol, not 498', results: corrected.results }).expect(201)
     const rev2 = res.body.certificate
     expect(rev2).toMatchObject({ number, revision: 2, replacesId: id, current: true, correctionReason: 'CO value mistyped: 502 µmol/mol, not 498' })
