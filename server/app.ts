@@ -5,7 +5,7 @@ import express, { type Request } from 'express'
 import session from 'express-session'
 import helmet from 'helmet'
 import { pinoHttp } from 'pino-http'
-import type { Logger } from 'pino'
+import { type Logger, pino } from 'pino'
 import type { AppDeps, AppInternals } from './lib/deps.ts'
 import { NotFoundError } from './lib/http-errors.ts'
 import { buildOpenApi } from './lib/openapi.ts'
@@ -47,9 +47,13 @@ export function createApp(deps: AppDeps, options: AppOptions): express.Express {
     pinoHttp({
       logger: options.logger,
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
+      // our serializers take the raw request and response: pino-http's default wrapping would first build the
+      // standard serializers' full objects (every header) on each request, only for these to drop them
+      wrapSerializers: false,
       serializers: {
-        req: (req: { method: string; url: string; id: unknown }) => ({ id: req.id, method: req.method, url: req.url }),
+        req: (req: { method: string; originalUrl?: string; url: string; id: unknown }) => ({ id: req.id, method: req.method, url: req.originalUrl ?? req.url }),
         res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+        err: pino.stdSerializers.err,
       },
     }),
   )
@@ -115,9 +119,15 @@ export function createApp(deps: AppDeps, options: AppOptions): express.Express {
 
   if (options.clientDir && existsSync(resolve(options.clientDir, 'index.html'))) {
     const dir = resolve(options.clientDir)
-    app.use(express.static(dir, { index: false, maxAge: '1h', setHeaders: (res, path) => {
-      if (path.includes('/assets/')) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable')
-    } }))
+    app.use(
+      express.static(dir, {
+        index: false,
+        maxAge: '1h',
+        setHeaders: (res, path) => {
+          if (path.includes('/assets/')) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable')
+        },
+      }),
+    )
     app.get('/{*splat}', (_req, res) => res.sendFile(resolve(dir, 'index.html')))
   }
   app.use(errorHandler)

@@ -1,6 +1,6 @@
 import type { EntityManager } from '@mikro-orm/core'
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express'
-import { z } from 'zod'
+import type { z } from 'zod'
 import type { Role, SessionUser } from '#shared/schemas/auth.ts'
 import type { AppDeps } from './deps.ts'
 import { ForbiddenError, UnauthorizedError } from './http-errors.ts'

@@ -1,5 +1,6 @@
 import type { MikroORM } from '@mikro-orm/core'
 import session from 'express-session'
+import { readRow } from './prepared-reads.ts'
 
 /** A session's stored expiry is moved forward at most this often (per process), not on every request. */
 export const TOUCH_INTERVAL_MS = 60_000
@@ -31,10 +32,9 @@ export class DatabaseSessionStore extends session.Store {
   }
 
   override get(sid: string, cb: (err: unknown, session?: session.SessionData | null) => void): void {
-    this.conn()
-      .execute<{ data: string; expires_at: number | string }[]>('select data, expires_at from sessions where sid = ?', [sid])
-      .then((rows) => {
-        const row = rows[0]
+    // read on every request: a prepared statement (server/lib/prepared-reads.ts)
+    readRow<{ data: string; expires_at: number | string }>(this.orm.em, 'select data, expires_at from sessions where sid = ?', [sid])
+      .then((row) => {
         if (!row || Number(row.expires_at) < Date.now()) return cb(null, null)
         cb(null, JSON.parse(row.data) as session.SessionData)
       })

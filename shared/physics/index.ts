@@ -1,5 +1,8 @@
 /**
- * The physics core's public surface: nothing else in shared/physics is imported from outside.
+ * The physics core's public surface: code outside shared/physics imports from here, except that gases.ts (the gas
+ * library) and constants.ts, which load no equation of state, may be imported directly by modules that must stay
+ * light, such as the order schemas and order formatting of the home page (an import from here brings the equations
+ * of state and the GERG-2008 parameter table into the importer's chunk).
  * Pure TypeScript, no I/O; runs in the browser and on the server. SI units throughout (K, Pa absolute, mol/m³,
  * m³, kg); conversions to display units live in units.ts and happen at the edges.
  */

@@ -1,7 +1,7 @@
 import { z } from 'zod'
-import { isKnownGas } from '../physics/index.ts'
+import { isKnownGas } from '../physics/gases.ts'
 import { type OrderStatus, OrderStatusSchema } from './order-lifecycle.ts'
-import { LinePricingSchema, toMoleFraction } from './quote.ts'
+import { LinePricingSchema, toMoleFraction } from './line-pricing.ts'
 
 /**
  * Orders and their mixture specifications as they cross the wire.

@@ -1,5 +1,5 @@
-import { getGas, isKnownGas } from '../physics/index.ts'
-import { CAUTIONS } from '../planning/index.ts'
+import { getGas, isKnownGas } from '../physics/gases.ts'
+import { CAUTIONS } from '../planning/rules.ts'
 
 /**
  * Standing cautions of a mixture, for the plan workspace, the calculator and the fill sheet. Kept apart from

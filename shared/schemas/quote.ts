@@ -1,4 +1,3 @@
-import { z } from 'zod'
 import {
   expandPseudoComponents,
   getGas,
@@ -19,17 +18,9 @@ import {
   stateFromTP,
   ZERO_CELSIUS_K,
 } from '../physics/index.ts'
-import type { ComponentUnit, OrderLineInput } from './order.ts'
-import {
-  certificationClassPct,
-  HAZARD_LABEL,
-  type HazardSurchargeKey,
-  HazardSurchargeKeySchema,
-  type PriceBook,
-  type PriceEntry,
-  rentalClassLitres,
-  SHOP_CURRENCY,
-} from './pricing.ts'
+import { type GasUse, type LinePricing, toMoleFraction } from './line-pricing.ts'
+import type { OrderLineInput } from './order.ts'
+import { certificationClassPct, HAZARD_LABEL, type HazardSurchargeKey, type PriceBook, type PriceEntry, rentalClassLitres, SHOP_CURRENCY } from './pricing.ts'
 
 /**
  * Pricing a quote: what one cylinder of a specified mixture holds, what that gas costs, plus rental,
@@ -55,58 +46,12 @@ export const QUOTE_REFERENCE_LABEL = getReferenceCondition(QUOTE_REFERENCE_ID).l
 /** Preferred equation of state; Peng–Robinson replaces it for mixtures it does not cover. */
 export const QUOTE_MODEL: ModelId = 'gerg-2008'
 
-/** Amount in the customer's unit → mole fraction 0..1. */
-export function toMoleFraction(amount: number, unit: ComponentUnit): number {
-  return unit === 'percent' ? amount / 100 : unit === 'ppm' ? amount / 1e6 : amount
-}
+export { type GasUse, GasUseSchema, type LinePricing, LinePricingSchema, toMoleFraction } from './line-pricing.ts'
 
 /** True when a gas id can carry a gas price (a gas of the library). */
 export function isPriceableGas(id: string): boolean {
   return isKnownGas(id)
 }
-
-// ---- wire shape of a priced line --------------------------------------------------------------------------
-
-export const GasUseSchema = z.object({
-  gas: z.string(),
-  formula: z.string(),
-  /** mole fraction in the mixture */
-  fraction: z.number(),
-  amountMol: z.number(),
-  massKg: z.number(),
-  /** standard volume at 15 °C, 101.325 kPa (real gas), m³ */
-  standardVolumeM3: z.number(),
-  unit: z.enum(['m3-15C', 'kg']),
-  unitPriceMinor: z.number().int(),
-  costMinor: z.number().int(),
-})
-export type GasUse = z.infer<typeof GasUseSchema>
-
-export const LinePricingSchema = z.object({
-  currency: z.string(),
-  /** equation of state used for the filled cylinder */
-  model: z.string(),
-  temperatureC: z.number(),
-  pressureBarAbsolute: z.number(),
-  compressibility: z.number(),
-  amountMolPerCylinder: z.number(),
-  massKgPerCylinder: z.number(),
-  referenceLabel: z.string(),
-  gases: z.array(GasUseSchema),
-  gasMinor: z.number().int(),
-  rental: z.object({ key: z.string(), days: z.number().int(), unitPriceMinor: z.number().int(), costMinor: z.number().int() }).nullable(),
-  certification: z.object({ key: z.string(), label: z.string(), costMinor: z.number().int() }),
-  surcharges: z.array(z.object({ key: HazardSurchargeKeySchema, label: z.string(), costMinor: z.number().int() })),
-  perCylinderMinor: z.number().int(),
-  quantity: z.number().int(),
-  totalMinor: z.number().int(),
-  hazards: z.array(HazardSurchargeKeySchema),
-  /** safety cautions for this mixture, in plain words */
-  cautions: z.array(z.string()),
-  /** findings of the physics core (fallback model, condensation risk, …) */
-  notes: z.array(z.string()),
-})
-export type LinePricing = z.infer<typeof LinePricingSchema>
 
 export interface QuoteProblem {
   /** path in the order input, e.g. "lines.0.components.1.gas" */

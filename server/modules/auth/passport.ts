@@ -3,6 +3,7 @@ import passport from 'passport'
 import { Strategy as LocalStrategy } from 'passport-local'
 import type { Role, SessionUser } from '#shared/schemas/auth.ts'
 import { dummyHash, verifyPassword } from '../../lib/passwords.ts'
+import { readRow } from '../../lib/prepared-reads.ts'
 
 declare global {
   namespace Express {
@@ -52,11 +53,11 @@ export function createPassport(orm: MikroORM): passport.PassportStatic {
     }),
   )
   pp.serializeUser((user, done) => done(null, (user as SessionUser).id))
+  // read on every signed-in request (a prepared statement), so a deactivation or a role change takes effect at the
+  // user's next request
   pp.deserializeUser((id: number, done) => {
-    conn()
-      .execute<UserRow[]>('select id, email, name, roles, active, customer_id from users where id = ?', [id])
-      .then((rows) => {
-        const row = rows[0]
+    readRow<UserRow>(orm.em, 'select id, email, name, roles, active, customer_id from users where id = ?', [id])
+      .then((row) => {
         // a deactivated or deleted user is signed out at the next request
         done(null, row && row.active ? toSessionUser(row) : false)
       })

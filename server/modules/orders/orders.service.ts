@@ -1,4 +1,4 @@
-import { type EntityManager, type FilterQuery, raw } from '@mikro-orm/core'
+import { type EntityManager, raw } from '@mikro-orm/core'
 import type { SqlEntityManager } from '@mikro-orm/knex'
 import { type Role, type SessionUser, STAFF_ROLES } from '#shared/schemas/auth.ts'
 import type {
@@ -18,6 +18,7 @@ import { SHOP_CURRENCY } from '#shared/schemas/pricing.ts'
 import { describeMixture, lineMixture, type OrderQuote, quoteOrder, toMoleFraction } from '#shared/schemas/quote.ts'
 import { getGas } from '#shared/physics/index.ts'
 import { audit } from '../../lib/audit.ts'
+import { readRows, type SqlParam } from '../../lib/prepared-reads.ts'
 import type { AppDeps } from '../../lib/deps.ts'
 import { BadRequestError, ConflictError, ForbiddenError, HttpError, NotFoundError, UnprocessableError } from '../../lib/http-errors.ts'
 import { AuditEventSchema } from '../audit/audit-event.entity.ts'
@@ -504,7 +505,8 @@ interface ListedRow {
   status: OrderStatus
   reference: string
   needed_by: string | null
-  total_minor: number
+  /** a number in SQLite, possibly a string for a PostgreSQL bigint */
+  total_minor: number | string
   currency: string
   /** epoch ms in SQLite, a timestamp in PostgreSQL */
   created_at: number | string | Date
@@ -513,71 +515,140 @@ interface ListedRow {
   company: string
 }
 
+/** Columns of the sort keys (the orders table's keyset). */
+const SORT_COLUMN: Record<SortField, string> = { createdAt: 'created_at', number: 'number', neededBy: 'needed_by', totalMinor: 'total_minor' }
+
+/**
+ * SQL text of the orders list for one database platform: identifiers quoted the platform's way, values always
+ * passed as `?` parameters. Built once per platform (SQLite and PostgreSQL quote differently).
+ */
+interface ListSql {
+  /** `alias.column`, quoted */
+  col(alias: string, column: string): string
+  pageHead: string
+  linesHead: string
+  countHead: string
+}
+
+const listSqlCache = new WeakMap<object, ListSql>()
+
+function listSqlOf(em: EntityManager): ListSql {
+  const platform = em.getPlatform()
+  let cached = listSqlCache.get(platform)
+  if (!cached) {
+    const q = (id: string) => platform.quoteIdentifier(id)
+    const col = (alias: string, column: string) => q(`${alias}.${column}`)
+    const page = ['id', 'number', 'status', 'reference', 'needed_by', 'total_minor', 'currency', 'created_at'].map((c) => col('o', c))
+    cached = {
+      col,
+      pageHead:
+        `select ${page.join(', ')}, o.customer_id as customer_id, ${col('c', 'code')}, ${col('c', 'company')} ` +
+        `from ${q('orders')} as ${q('o')} inner join ${q('customers')} as ${q('c')} on ${col('o', 'customer_id')} = ${col('c', 'id')}`,
+      linesHead:
+        `select ${['order_id', 'line_no', 'description', 'quantity'].map((c) => col('l', c)).join(', ')} ` +
+        `from ${q('order_lines')} as ${q('l')} where ${col('l', 'order_id')} in `,
+      countHead: `select count(*) as ${q('count')} from ${q('orders')} as ${q('o0')}`,
+    }
+    listSqlCache.set(platform, cached)
+  }
+  return cached
+}
+
+/** A condition of the orders list: SQL with `?` placeholders and its values. */
+interface Condition {
+  sql: string
+  params: SqlParam[]
+}
+
+function whereOf(conditions: Condition[]): { sql: string; params: SqlParam[] } {
+  if (conditions.length === 0) return { sql: '', params: [] }
+  return { sql: ` where ${conditions.map((c) => c.sql).join(' and ')}`, params: conditions.flatMap((c) => c.params) }
+}
+
+const placeholders = (n: number) => `(${Array.from({ length: n }, () => '?').join(', ')})`
+
 /**
  * The orders table: filter (status, customer, text), sort (created, number, needed-by, total) and keyset paging on
  * (sort key, id) — each page is one indexed range scan however deep it is, plus one query for the lines of the
- * page's orders and, on the first page, one count. Rows are read as plain rows (only the columns shown, no entity
- * hydration). Customers see only their own company's orders.
+ * page's orders and, on the first page, one count. The statements are plain SQL with `?` parameters, read as plain
+ * rows (no query builder, no entity hydration: only the columns shown) through server/lib/prepared-reads.ts, which
+ * keeps them compiled on SQLite. Customers see only their own company's orders.
  */
 export async function listOrders(em: EntityManager, user: SessionUser, query: OrderListParams): Promise<OrderList> {
-  const sql = em as SqlEntityManager
-  const base: FilterQuery<Order>[] = []
+  const sql = listSqlOf(em)
+  const run = <T>(text: string, params: SqlParam[]) => readRows<T>(em, text, params)
+
+  let customerId: number | undefined
   if (isCustomerOnly(user)) {
     if (user.customerId === null || (query.customerId !== undefined && query.customerId !== user.customerId)) return { items: [], nextCursor: null, total: 0 }
-    base.push({ customer: user.customerId })
-  } else if (query.customerId !== undefined) base.push({ customer: query.customerId })
-  if (query.status?.length) base.push({ status: { $in: query.status } })
-  if (query.q) {
-    // an order number (or its start) is a range on the unique index; anything else is a substring search
-    const asNumber = /^fw-\d{4}(-\d{0,5})?$/i.test(query.q) ? query.q.toUpperCase() : null
-    base.push(asNumber ? { number: { $gte: asNumber, $lt: `${asNumber}~` } } : { searchText: { $like: `%${query.q.toLowerCase()}%` } })
-  }
+    customerId = user.customerId
+  } else customerId = query.customerId
 
+  // the filters, written once per table alias: 'o' for the page, 'o0' for the count
+  const base = (alias: string): Condition[] => {
+    const out: Condition[] = []
+    if (customerId !== undefined) out.push({ sql: `${sql.col(alias, 'customer_id')} = ?`, params: [customerId] })
+    if (query.status?.length) out.push({ sql: `${sql.col(alias, 'status')} in ${placeholders(query.status.length)}`, params: [...query.status] })
+    if (query.q) {
+      // an order number (or its start) is a range on the unique index; anything else is a substring search
+      const asNumber = /^fw-\d{4}(-\d{0,5})?$/i.test(query.q) ? query.q.toUpperCase() : null
+      out.push(
+        asNumber
+          ? { sql: `${sql.col(alias, 'number')} >= ? and ${sql.col(alias, 'number')} < ?`, params: [asNumber, `${asNumber}~`] }
+          : { sql: `${sql.col(alias, 'search_text')} like ?`, params: [`%${query.q.toLowerCase()}%`] },
+      )
+    }
+    return out
+  }
   const { field, dir } = parseSort(query.sort)
   const cursor = query.cursor ? decodeCursor(query.cursor, field) : null
   const limit = query.limit
-  const cmp = dir === 'asc' ? '$gt' : '$lt'
+  const cmp = dir === 'asc' ? '>' : '<'
+  const id = sql.col('o', 'id')
 
-  const fetch = (where: FilterQuery<Order>[], orderBy: Record<string, 'asc' | 'desc'>, take: number) =>
-    sql
-      .createQueryBuilder(OrderSchema, 'o')
-      .select([
-        'o.id',
-        'o.number',
-        'o.status',
-        'o.reference',
-        'o.neededBy',
-        'o.totalMinor',
-        'o.currency',
-        'o.createdAt',
-        raw('o.customer_id as customer_id'),
-        'c.code',
-        'c.company',
-      ])
-      .join('o.customer', 'c')
-      .where(where.length ? { $and: where } : {})
-      .orderBy(orderBy as never)
-      .limit(take)
-      .execute<ListedRow[]>('all', false)
+  const fetch = (where: Condition[], orderBy: [string, 'asc' | 'desc'][], take: number) => {
+    const w = whereOf(where)
+    const order = orderBy.map(([c, d]) => `${c} ${d}`).join(', ')
+    return run<ListedRow>(`${sql.pageHead}${w.sql} order by ${order} limit ?`, [...w.params, take])
+  }
 
   let rows: ListedRow[]
   if (field === 'neededBy') {
     // dated orders first (by date), then undated ones (by id); each part is one range scan on its index
+    const neededBy = sql.col('o', 'needed_by')
     rows = []
     if (!cursor || cursor.v !== null) {
-      const keyset: FilterQuery<Order>[] = cursor
-        ? [{ $or: [{ neededBy: { [cmp]: cursor.v } }, { neededBy: cursor.v, id: { [cmp]: cursor.id } }] } as FilterQuery<Order>]
+      const keyset: Condition[] = cursor
+        ? [{ sql: `(${neededBy} ${cmp} ? or (${neededBy} = ? and ${id} ${cmp} ?))`, params: [cursor.v, cursor.v, cursor.id] }]
         : []
-      rows = await fetch([...base, { neededBy: { $ne: null } }, ...keyset], { neededBy: dir, id: dir }, limit + 1)
+      rows = await fetch(
+        [...base('o'), { sql: `${neededBy} is not null`, params: [] }, ...keyset],
+        [
+          [neededBy, dir],
+          [id, dir],
+        ],
+        limit + 1,
+      )
     }
     if (rows.length <= limit) {
-      const keyset: FilterQuery<Order>[] = cursor && cursor.v === null ? [{ id: { $gt: cursor.id } }] : []
-      rows.push(...(await fetch([...base, { neededBy: null }, ...keyset], { id: 'asc' }, limit + 1 - rows.length)))
+      const keyset: Condition[] = cursor && cursor.v === null ? [{ sql: `${id} > ?`, params: [cursor.id] }] : []
+      rows.push(...(await fetch([...base('o'), { sql: `${neededBy} is null`, params: [] }, ...keyset], [[id, 'asc']], limit + 1 - rows.length)))
     }
   } else {
-    const v = field === 'createdAt' && cursor ? new Date(cursor.v as string) : cursor?.v
-    const keyset: FilterQuery<Order>[] = cursor ? [{ $or: [{ [field]: { [cmp]: v } }, { [field]: v, id: { [cmp]: cursor.id } }] } as FilterQuery<Order>] : []
-    rows = await fetch([...base, ...keyset], { [field]: dir, id: dir }, limit + 1)
+    const key = sql.col('o', SORT_COLUMN[field])
+    const keyset: Condition[] = []
+    if (cursor) {
+      const v = field === 'createdAt' ? new Date(cursor.v as string) : cursor.v
+      keyset.push({ sql: `(${key} ${cmp} ? or (${key} = ? and ${id} ${cmp} ?))`, params: [v, v, cursor.id] })
+    }
+    rows = await fetch(
+      [...base('o'), ...keyset],
+      [
+        [key, dir],
+        [id, dir],
+      ],
+      limit + 1,
+    )
   }
 
   const page = rows.slice(0, limit)
@@ -588,28 +659,36 @@ export async function listOrders(em: EntityManager, user: SessionUser, query: Or
     rows.length > limit && last
       ? encodeCursor({
           id: last.id,
-          v: field === 'createdAt' ? createdIso(last) : field === 'neededBy' ? (last.needed_by ?? null) : field === 'number' ? last.number : last.total_minor,
+          v:
+            field === 'createdAt'
+              ? createdIso(last)
+              : field === 'neededBy'
+                ? (last.needed_by ?? null)
+                : field === 'number'
+                  ? last.number
+                  : Number(last.total_minor),
         })
       : null
 
   const ids = page.map((o) => o.id)
   const lines = ids.length
-    ? await sql
-        .createQueryBuilder(OrderLineSchema, 'l')
-        .select(['l.order', 'l.lineNo', 'l.description', 'l.quantity'])
-        .where({ order: { $in: ids } })
-        .execute<{ order_id: number; line_no: number; description: string; quantity: number }[]>('all', false)
+    ? await run<{ order_id: number; line_no: number; description: string; quantity: number }>(`${sql.linesHead}${placeholders(ids.length)}`, ids)
     : []
   // sorted here (a handful of rows) so the query stays a plain index lookup
   lines.sort((a, b) => a.order_id - b.order_id || a.line_no - b.line_no)
   const byOrder = new Map<number, { description: string; quantity: number }[]>()
   for (const l of lines) {
-    const list = byOrder.get(l.order_id) ?? []
-    list.push({ description: l.description, quantity: l.quantity })
-    byOrder.set(l.order_id, list)
+    const list = byOrder.get(l.order_id)
+    if (list) list.push({ description: l.description, quantity: l.quantity })
+    else byOrder.set(l.order_id, [{ description: l.description, quantity: l.quantity }])
   }
   // the count rides on an index for status and customer filters; a text search would scan every row, so it has none
-  const total = cursor || query.q ? null : await em.count(OrderSchema, base.length ? { $and: base } : {})
+  let total: number | null = null
+  if (!cursor && !query.q) {
+    const w = whereOf(base('o0'))
+    const counted = await run<{ count: number | string }>(`${sql.countHead}${w.sql}`, w.params)
+    total = Number(counted[0]?.count ?? 0)
+  }
   const items: OrderSummary[] = page.map((o) => {
     const ls = byOrder.get(o.id) ?? []
     return {

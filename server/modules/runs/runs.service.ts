@@ -29,6 +29,7 @@ import {
 import type { z } from 'zod'
 import { audit } from '../../lib/audit.ts'
 import { ConflictError, NotFoundError, UnprocessableError } from '../../lib/http-errors.ts'
+import { readRows, type SqlParam } from '../../lib/prepared-reads.ts'
 import { type Cylinder, CylinderSchema } from '../cylinders/cylinder.entity.ts'
 import { assertCylinderUsable } from '../cylinders/cylinders.service.ts'
 import { type Order, type OrderLine, OrderLineSchema } from '../orders/order.entity.ts'
@@ -64,6 +65,27 @@ type LoadedRun = FillRun & {
   cylinder: Cylinder
 }
 
+/** A run with its cylinder (the plan, line and order not loaded). */
+type RunWithCylinder = FillRun & { cylinder: Cylinder }
+
+/** What the run screen shows of a run's plan, order line and order. */
+interface RunContext {
+  planId: number
+  planVersion: number
+  description: string | null
+  order: { id: number; number: string; status: OrderStatus } | null
+}
+
+function contextOf(run: LoadedRun): RunContext {
+  const order = run.plan.orderLine?.order
+  return {
+    planId: run.plan.id,
+    planVersion: run.plan.planVersion,
+    description: run.plan.orderLine?.description ?? null,
+    order: order ? { id: order.id, number: order.number, status: order.status as OrderStatus } : null,
+  }
+}
+
 // ---- access ---------------------------------------------------------------------------------------------------
 
 const isSupervisor = (user: SessionUser) => user.roles.includes('admin') || user.roles.includes('blender')
@@ -76,45 +98,109 @@ function canRecord(user: SessionUser, run: FillRun): boolean {
   return isSupervisor(user) || (user.roles.includes('technician') && run.technicianId === user.id)
 }
 
+/**
+ * What a run is loaded with: its plan, order line, order and cylinder — without the plan's stored request and result
+ * and the line's components and pricing. Those large JSON documents are read only when runs are created from a plan
+ * (which loads the plan itself): the run carries its own targets. Left out, they are neither parsed on every load
+ * nor compared at every flush.
+ */
+const RUN_POPULATE = ['plan', 'plan.orderLine', 'plan.orderLine.order', 'cylinder'] as never
+const RUN_EXCLUDE = ['plan.request', 'plan.result', 'plan.orderLine.components', 'plan.orderLine.pricing'] as never
+
+/** The plan, order line and order of a run as the run screen shows them: one plain query. */
+async function runContext(em: EntityManager, run: FillRun): Promise<RunContext> {
+  const planId = (run.plan as unknown as { id: number }).id
+  const [row] = await rows<{ plan_version: number; description: string | null; order_id: number | null; number: string | null; status: string | null }>(
+    em,
+    'select p.plan_version, l.description, o.id as order_id, o.number, o.status from fill_plans p left join order_lines l on l.id = p.order_line_id left join orders o on o.id = l.order_id where p.id = ?',
+    [planId],
+  )
+  if (!row) throw new Error(`Fill run ${run.id} refers to plan ${planId}, which is not in the database.`)
+  return {
+    planId,
+    planVersion: Number(row.plan_version),
+    description: row.description ?? null,
+    order: row.order_id === null ? null : { id: Number(row.order_id), number: String(row.number), status: row.status as OrderStatus },
+  }
+}
+
 /** The run if the user may see it (write access when `write`); 404 otherwise, so ids are not confirmed. */
 async function loadRun(em: EntityManager, user: SessionUser, id: number, write = false): Promise<LoadedRun> {
-  const run = await em.findOne(FillRunSchema, { id }, { populate: ['plan', 'plan.orderLine', 'plan.orderLine.order', 'cylinder'] as never })
+  const run = await em.findOne(FillRunSchema, { id }, { populate: RUN_POPULATE, exclude: RUN_EXCLUDE })
   if (!run || !(write ? canRecord(user, run) : canSee(user, run))) throw new NotFoundError(`No fill run ${id} for you.`)
   return run as LoadedRun
 }
 
 // ---- DTOs -----------------------------------------------------------------------------------------------------
 
+/** Plain rows of a read-only query (in the unit of work's transaction when there is one). */
+const rows = <T>(em: EntityManager, sql: string, params: SqlParam[]): Promise<T[]> => readRows<T>(em, sql, params)
+
+const placeholders = (n: number) => Array.from({ length: n }, () => '?').join(', ')
+
 async function names(em: EntityManager, ids: (number | null | undefined)[]): Promise<Map<number, string>> {
   const wanted = [...new Set(ids.filter((x): x is number => typeof x === 'number'))]
   if (!wanted.length) return new Map()
-  const users = await em.find(UserSchema, { id: { $in: wanted } })
-  return new Map(users.map((u) => [u.id, u.name]))
+  const users = await rows<{ id: number; name: string }>(em, `select id, name from users where id in (${placeholders(wanted.length)})`, wanted)
+  return new Map(users.map((u) => [Number(u.id), u.name]))
+}
+
+/** A recorded reading as stored (the columns of fill_readings). */
+interface ReadingRow {
+  id: number
+  step_index: number
+  gas: string
+  pressure_bar_abs: number | null
+  pressure_bar_gauge: number | null
+  temperature_c: number | null
+  scale_kg: number | null
+  outcome: FillReading['outcome']
+  recorded_by_id: number
+  /** epoch ms in SQLite, a timestamp in PostgreSQL */
+  recorded_at: number | string | Date
+}
+
+/** The readings of a run, oldest first: plain rows (immutable records, nothing to track). */
+function readingsOf(em: EntityManager, runId: number): Promise<ReadingRow[]> {
+  return rows<ReadingRow>(
+    em,
+    'select id, step_index, gas, pressure_bar_abs, pressure_bar_gauge, temperature_c, scale_kg, outcome, recorded_by_id, recorded_at from fill_readings where run_id = ? order by id asc',
+    [runId],
+  )
 }
 
 const iso = (d: Date | string | null | undefined) => (d ? new Date(d).toISOString() : null)
 
-function toReadingDto(r: FillReading, nameOf: Map<number, string>): RunReading {
+const num = (v: number | string | null | undefined) => (v === null || v === undefined ? null : Number(v))
+const dateOf = (v: number | string | Date) => new Date(typeof v === 'string' && /^\d+$/.test(v) ? Number(v) : v)
+
+function toReadingDto(r: ReadingRow, nameOf: Map<number, string>): RunReading {
+  const recordedById = Number(r.recorded_by_id)
   return {
-    id: r.id,
-    stepIndex: r.stepIndex,
+    id: Number(r.id),
+    stepIndex: Number(r.step_index),
     gas: r.gas,
-    pressureBarAbs: r.pressureBarAbs ?? null,
-    pressureBarGauge: r.pressureBarGauge ?? null,
-    temperatureC: r.temperatureC ?? null,
-    scaleKg: r.scaleKg ?? null,
+    pressureBarAbs: num(r.pressure_bar_abs),
+    pressureBarGauge: num(r.pressure_bar_gauge),
+    temperatureC: num(r.temperature_c),
+    scaleKg: num(r.scale_kg),
     outcome: r.outcome,
-    recordedById: r.recordedById,
-    recordedBy: nameOf.get(r.recordedById) ?? null,
-    recordedAt: new Date(r.recordedAt).toISOString(),
+    recordedById,
+    recordedBy: nameOf.get(recordedById) ?? null,
+    recordedAt: dateOf(r.recorded_at).toISOString(),
   }
 }
 
-async function toRunDetail(em: EntityManager, user: SessionUser, run: LoadedRun): Promise<RunDetail> {
-  const state = readState(run.targets)
-  const readings = await em.find(FillReadingSchema, { run: run.id }, { orderBy: { id: 'asc' } })
-  const nameOf = await names(em, [run.technicianId, ...readings.map((r) => r.recordedById)])
-  const order = run.plan.orderLine?.order
+async function toRunDetail(
+  em: EntityManager,
+  user: SessionUser,
+  run: RunWithCylinder,
+  context: RunContext,
+  state: RunState = readState(run.targets),
+): Promise<RunDetail> {
+  const readings = await readingsOf(em, run.id)
+  const nameOf = await names(em, [run.technicianId, ...readings.map((r) => Number(r.recorded_by_id))])
+  const order = context.order
   const c = run.cylinder
   return {
     id: run.id,
@@ -130,10 +216,10 @@ async function toRunDetail(em: EntityManager, user: SessionUser, run: LoadedRun)
     referenceTemperature: { value: state.referenceTemperatureC, unit: 'C' },
     finalGaugePressure: { value: state.finalGaugeBar, unit: 'bar', reference: 'gauge' },
     gaugeResolution: state.segments[0]?.request.gauge ? { value: barOf(state.segments[0].request.gauge.resolution), unit: 'bar' } : null,
-    planId: run.plan.id,
-    planVersion: run.plan.planVersion,
+    planId: context.planId,
+    planVersion: context.planVersion,
     order: order ? { id: order.id, number: order.number, status: order.status } : null,
-    description: run.plan.orderLine?.description ?? null,
+    description: context.description,
     cylinder: {
       id: c.id,
       serial: c.serial,
@@ -197,7 +283,7 @@ async function summaries(em: EntityManager, runs: LoadedRun[]): Promise<RunSumma
 async function staleConflict(em: EntityManager, user: SessionUser, id: number, message: string): Promise<ConflictError> {
   const fresh = em.fork()
   const run = await loadRun(fresh, user, id)
-  return new ConflictError(message, { current: await toRunDetail(fresh, user, run) })
+  return new ConflictError(message, { current: await toRunDetail(fresh, user, run, contextOf(run)) })
 }
 
 // ---- creating runs from an approved plan ----------------------------------------------------------------------
@@ -354,14 +440,13 @@ export async function createRunsForPlan(
 // ---- reading lists -------------------------------------------------------------------------------------------
 
 const STATUS_RANK: Record<string, number> = { 'in-progress': 0, paused: 1, ready: 2, completed: 3, aborted: 4 }
-const POPULATE = ['plan', 'plan.orderLine', 'plan.orderLine.order', 'cylinder'] as never
 
 /** "My fills today": the user's runs for the date, plus unfinished runs from earlier days. */
 export async function listMyRuns(em: EntityManager, user: SessionUser, date: string = localIsoDate()): Promise<RunSummary[]> {
   const runs = (await em.find(
     FillRunSchema,
     { technicianId: user.id, $or: [{ scheduledFor: date }, { scheduledFor: { $lt: date }, status: { $in: [...OPEN_STATUSES] } }] },
-    { populate: POPULATE, orderBy: { scheduledFor: 'asc', id: 'asc' } },
+    { populate: RUN_POPULATE, exclude: RUN_EXCLUDE, orderBy: { scheduledFor: 'asc', id: 'asc' } },
   )) as LoadedRun[]
   runs.sort((a, b) => STATUS_RANK[a.status] - STATUS_RANK[b.status] || a.scheduledFor.localeCompare(b.scheduledFor) || a.id - b.id)
   return summaries(em, runs)
@@ -373,7 +458,12 @@ export async function listRuns(em: EntityManager, query: RunListQueryParsed): Pr
   if (query.status) where.status = query.status
   if (query.technicianId) where.technicianId = query.technicianId
   if (query.planId) where.plan = query.planId
-  const runs = (await em.find(FillRunSchema, where, { populate: POPULATE, orderBy: { scheduledFor: 'desc', id: 'desc' }, limit: 500 })) as LoadedRun[]
+  const runs = (await em.find(FillRunSchema, where, {
+    populate: RUN_POPULATE,
+    exclude: RUN_EXCLUDE,
+    orderBy: { scheduledFor: 'desc', id: 'desc' },
+    limit: 500,
+  })) as LoadedRun[]
   return summaries(em, runs)
 }
 
@@ -385,7 +475,7 @@ export async function lookupRunByBarcode(em: EntityManager, user: SessionUser, b
   const runs = (await em.find(
     FillRunSchema,
     { cylinder: c.id, status: { $in: [...OPEN_STATUSES] } },
-    { populate: POPULATE, orderBy: { id: 'desc' } },
+    { populate: RUN_POPULATE, exclude: RUN_EXCLUDE, orderBy: { id: 'desc' } },
   )) as LoadedRun[]
   const mine = runs.find((r) => canRecord(user, r))
   if (!mine) throw new NotFoundError(`Cylinder ${c.serial} has no open fill assigned to you.`)
@@ -393,12 +483,13 @@ export async function lookupRunByBarcode(em: EntityManager, user: SessionUser, b
 }
 
 export async function getRunDetail(em: EntityManager, user: SessionUser, id: number): Promise<RunDetail> {
-  return toRunDetail(em, user, await loadRun(em, user, id))
+  const run = await loadRun(em, user, id)
+  return toRunDetail(em, user, run, contextOf(run))
 }
 
 // ---- order progress -------------------------------------------------------------------------------------------
 
-async function moveOrder(em: EntityManager, user: SessionUser, order: Order, to: OrderStatus): Promise<void> {
+async function moveOrder(em: EntityManager, user: SessionUser, order: { id: number; status: string }, to: OrderStatus): Promise<void> {
   const path: OrderStatus[] = to === 'filling' ? ['filling'] : ['filling', 'analysis']
   const fresh = order
   for (const next of path) {
@@ -630,24 +721,28 @@ class StaleVersion extends Error {}
 export async function recordReading(em: EntityManager, user: SessionUser, id: number, input: RecordReadingInput): Promise<RecordReadingResult> {
   const replay = async (): Promise<RecordReadingResult | null> => {
     const fresh = em.fork()
-    const existing = await fresh.findOne(FillReadingSchema, { clientRequestId: input.clientRequestId })
+    const [existing] = await rows<{ id: number; run_id: number }>(fresh, 'select id, run_id from fill_readings where client_request_id = ?', [
+      input.clientRequestId,
+    ])
     if (!existing) return null
-    if ((existing.run as unknown as { id: number }).id !== id) {
+    if (Number(existing.run_id) !== id) {
       throw new ConflictError('This reading id was already used on another run; the tablet must make a new one.', {
         errors: [{ field: 'clientRequestId', message: 'Already used.' }],
       })
     }
     const run = await loadRun(fresh, user, id, true)
-    const detail = await toRunDetail(fresh, user, run)
-    return { run: detail, reading: detail.readings.find((r) => r.id === existing.id) as RunReading, replayed: true }
+    const detail = await toRunDetail(fresh, user, run, contextOf(run))
+    return { run: detail, reading: detail.readings.find((r) => r.id === Number(existing.id)) as RunReading, replayed: true }
   }
   const first = await replay()
   if (first) return first
 
-  let readingId = 0
   try {
-    await em.transactional(async (tx) => {
-      const run = await loadRun(tx, user, id, true)
+    return await em.transactional(async (tx): Promise<RecordReadingResult> => {
+      // the run and its cylinder are what this changes; of the plan, line and order only what the answer shows
+      const run = (await tx.findOne(FillRunSchema, { id }, { populate: ['cylinder'] as never })) as RunWithCylinder | null
+      if (!run || !canRecord(user, run)) throw new NotFoundError(`No fill run ${id} for you.`)
+      const context = await runContext(tx, run)
       checkVersion(run, input.expectedVersion)
       if (run.status === 'paused') throw new ConflictError('The run is paused: resume it before recording.')
       if (run.status === 'completed' || run.status === 'aborted') throw new ConflictError(`The run is ${run.status}; nothing more can be recorded on it.`)
@@ -691,7 +786,6 @@ export async function recordReading(em: EntityManager, user: SessionUser, id: nu
         clientRequestId: input.clientRequestId,
       })
       await tx.flush()
-      readingId = reading.id
 
       // every change to the run is made before the next flush, so its version goes up by exactly one
       const starting = run.status === 'ready'
@@ -710,8 +804,11 @@ export async function recordReading(em: EntityManager, user: SessionUser, id: nu
       run.targets = state as unknown as Record<string, unknown>
       audit(tx, user, 'run.reading', 'FillRun', run.id, { readingId: reading.id, stepIndex: input.stepIndex, outcome: evaluation.outcome })
       await tx.flush()
-      const order = run.plan.orderLine?.order
-      if (starting && order) await moveOrder(tx, user, order, 'filling')
+      if (starting && context.order) await moveOrder(tx, user, context.order, 'filling')
+      // the answer is the run as this transaction leaves it, without loading it again: the state as stored (read
+      // back from its JSON), the readings and names read inside the transaction — what it commits
+      const detail = await toRunDetail(tx, user, run, context, readState(JSON.parse(JSON.stringify(run.targets))))
+      return { run: detail, reading: detail.readings.find((r) => r.id === reading.id) as RunReading, replayed: false }
     })
   } catch (error) {
     if (error instanceof StaleVersion || error instanceof OptimisticLockError) {
@@ -723,9 +820,6 @@ export async function recordReading(em: EntityManager, user: SessionUser, id: nu
     }
     throw error
   }
-  const fresh = em.fork()
-  const detail = await toRunDetail(fresh, user, await loadRun(fresh, user, id))
-  return { run: detail, reading: detail.readings.find((r) => r.id === readingId) as RunReading, replayed: false }
 }
 
 // ---- pause, resume, re-plan confirmation, completion -----------------------------------------------------------
@@ -751,7 +845,8 @@ async function change(
     throw error
   }
   const fresh = em.fork()
-  return toRunDetail(fresh, user, await loadRun(fresh, user, id))
+  const run = await loadRun(fresh, user, id)
+  return toRunDetail(fresh, user, run, contextOf(run))
 }
 
 export function pauseRun(em: EntityManager, user: SessionUser, id: number, input: RunVersionInput): Promise<RunDetail> {

@@ -1,4 +1,4 @@
-import { PA_PER_BAR, PA_PER_PSI } from '#shared/physics/index.ts'
+import { PA_PER_BAR, PA_PER_PSI } from '#shared/physics/constants.ts'
 import type { DisplayUnits } from '#src/components/units-context.tsx'
 
 /** Pa per display unit; gauge pressures convert without an offset (both sides are relative to the same atmosphere). */
