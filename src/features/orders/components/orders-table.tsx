@@ -6,6 +6,7 @@ import { formatMoney } from '#shared/schemas/pricing.ts'
 import { paths } from '#src/app/paths.ts'
 import { formatDate } from '#src/components/order/format.ts'
 import { OrderStatusBadge } from '#src/components/order/status-badge.tsx'
+import { SortableThead } from '#src/components/ui/sortable-thead.tsx'
 import { cn } from '#src/lib/cn.ts'
 
 const features = tableFeatures({ rowSortingFeature })
@@ -110,39 +111,7 @@ export function OrdersTable({
     <div className="overflow-x-auto">
       <table className={cn('w-full text-sm', busy && 'opacity-60')} aria-busy={busy}>
         <caption className="sr-only">Orders; sortable columns have a button in their header. Arrow keys move between orders, Enter opens one.</caption>
-        <thead>
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id} className="border-b border-ink-300 text-left text-xs uppercase tracking-wide text-ink-600">
-              {group.headers.map((header) => {
-                const numeric = (header.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric
-                const sorted = header.column.getIsSorted()
-                return (
-                  <th
-                    key={header.id}
-                    scope="col"
-                    aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                    className={cn('whitespace-nowrap px-2 py-1.5 font-semibold', numeric && 'text-right')}
-                  >
-                    {header.column.getCanSort() ? (
-                      <button
-                        type="button"
-                        onClick={header.column.getToggleSortingHandler()}
-                        className="inline-flex items-center gap-1 uppercase hover:text-ink-900"
-                      >
-                        <table.FlexRender header={header} />
-                        <span aria-hidden="true" className="text-[10px]">
-                          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-                        </span>
-                      </button>
-                    ) : (
-                      <table.FlexRender header={header} />
-                    )}
-                  </th>
-                )
-              })}
-            </tr>
-          ))}
-        </thead>
+        <SortableThead table={table} />
         <tbody onKeyDown={onGridKeyDown}>
           {table.getRowModel().rows.map((row) => (
             <tr key={row.id} className="border-b border-ink-100 focus-within:bg-copper-50 hover:bg-ink-50">
